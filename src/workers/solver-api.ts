@@ -1,0 +1,4 @@
+/** What the solver worker offers the page (through comlink). */
+export interface SolverApi {
+  hello(): Promise<{ ready: boolean; at: number }>;
+}
