@@ -22,6 +22,7 @@ export default defineConfig({
     allOrNothing: true,
     emit: 'ts',
     snapshot: true,
+    snapshotName: '.snapshot-osmolane',
     silent: true,
   },
   preferTs: __filename.endsWith('.ts'),
