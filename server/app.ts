@@ -1,21 +1,51 @@
+import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import morgan from 'morgan';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import type { MikroORM } from '@mikro-orm/postgresql';
+import { createAuthMiddleware } from './auth/passport';
 import type { ServerConfig } from './config';
 import { errorHandler, notFoundRoute } from './errors';
+import { Mailbox } from './mail/mailbox';
+import { Mailer } from './mail/mailer';
+import { authRoutes } from './routes/auth';
+import { ApiRoutes, type RouteInfo } from './routes/define';
+import { designRoutes } from './routes/designs';
+import { devRoutes } from './routes/dev';
 import { healthRoutes } from './routes/health';
+import { libraryRoutes } from './routes/library';
+import { workspaceRoutes } from './routes/workspaces';
+import { createServices, type Services } from './services';
+import type { BlobStore } from './services/blob-store';
 
 export interface AppContext {
   config: ServerConfig;
   orm: MikroORM;
+  /** Outgoing mail and the mailbox the dev routes show; without it, mail goes straight into a fresh mailbox. */
+  mail?: { mailer: Mailer; mailbox: Mailbox };
+  blobs?: BlobStore;
+}
+
+/** What createApp builds, for main.ts and the tests: the services and the list of API routes ride on app.locals. */
+export interface AppLocals {
+  services: Services;
+  routes: RouteInfo[];
+  mailbox: Mailbox;
+}
+
+export function appLocals(app: Express): AppLocals {
+  return app.locals as unknown as AppLocals;
 }
 
 /** Builds the Express app: security headers, body limits, request log, the API under /api, then the built Angular app. */
 export function createApp(ctx: AppContext): Express {
   const { config, orm } = ctx;
+  const mailbox = ctx.mail?.mailbox ?? new Mailbox();
+  const mailer = ctx.mail?.mailer ?? Mailer.memory(mailbox, config.mailFrom);
+  const services = createServices({ orm, config, mailer, blobs: ctx.blobs });
+
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -38,11 +68,19 @@ export function createApp(ctx: AppContext): Express {
   );
   if (config.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
   app.use('/api', express.json({ limit: config.jsonLimit }));
+  app.use('/api', cookieParser());
 
-  const api = express.Router();
-  api.use(healthRoutes(orm, config.version));
-  api.use(notFoundRoute);
-  app.use('/api', api);
+  const api = new ApiRoutes(createAuthMiddleware(config, (sid, uid) => services.auth.findSession(sid, uid)));
+  healthRoutes(api, orm, config.version);
+  authRoutes(api, services, config);
+  workspaceRoutes(api, services);
+  designRoutes(api, services);
+  libraryRoutes(api, services);
+  if (config.devRoutes) devRoutes(api, mailbox);
+  api.router.use(notFoundRoute);
+  app.use('/api', api.router);
+  const locals: AppLocals = { services, routes: api.routes, mailbox };
+  Object.assign(app.locals, locals);
 
   const index = join(config.webRoot, 'index.html');
   if (existsSync(index)) {

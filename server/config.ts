@@ -2,6 +2,12 @@ import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
+export interface RateLimit {
+  /** Requests counted per client address within the window (for sign-in: failed ones only). */
+  limit: number;
+  windowMs: number;
+}
+
 export interface ServerConfig {
   port: number;
   host: string;
@@ -12,6 +18,22 @@ export interface ServerConfig {
   tokenSecret: string;
   logRequests: boolean;
   database: { host: string; port: number; user: string; password: string; dbName: string };
+  /** Where people reach the app; links in mails start with it. */
+  publicBaseUrl: string;
+  /** An SMTP server to send through; when unset the server starts its own local stand-in and keeps the mail. */
+  smtpUrl: string | null;
+  mailFrom: string;
+  /** Development routes (the mailbox) exist only outside production. */
+  devRoutes: boolean;
+  accessTokenSeconds: number;
+  refreshTokenDays: number;
+  /** bcrypt cost factor for new password hashes. */
+  passwordHashCost: number;
+  rateLimits: { signIn: RateLimit; reset: RateLimit };
+  /** Self-service accounts through POST /api/auth/sign-up (otherwise only by invitation). */
+  allowSignUp: boolean;
+  seedDemo: boolean;
+  demoPassword: string;
 }
 
 const root = join(__dirname, '..');
@@ -20,22 +42,44 @@ function packageVersion(): string {
   return (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { version: string }).version;
 }
 
+function numberFrom(value: string | undefined, fallback: number): number {
+  const n = Number(value);
+  return value !== undefined && value !== '' && Number.isFinite(n) ? n : fallback;
+}
+
 /** Reads the server's settings from the environment; a token secret is generated for local use when none is set. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const port = numberFrom(env['PORT'], 4300);
+  const production = env['NODE_ENV'] === 'production';
+  const window = numberFrom(env['RATE_LIMIT_WINDOW_MS'], 15 * 60_000);
   return {
-    port: Number(env['PORT'] ?? 4300),
+    port,
     host: env['HOST'] ?? '127.0.0.1',
     version: packageVersion(),
     webRoot: env['WEB_ROOT'] ?? join(root, 'dist', 'web', 'browser'),
     jsonLimit: env['JSON_LIMIT'] ?? '16mb',
-    tokenSecret: env['TOKEN_SECRET'] ?? randomBytes(32).toString('hex'),
+    tokenSecret: env['TOKEN_SECRET'] || randomBytes(32).toString('hex'),
     logRequests: env['LOG_REQUESTS'] !== '0',
     database: {
       host: env['PGHOST'] ?? '127.0.0.1',
-      port: Number(env['PGPORT'] ?? 55432),
+      port: numberFrom(env['PGPORT'], 55432),
       user: env['PGUSER'] ?? 'postgres',
       password: env['PGPASSWORD'] ?? '',
       dbName: env['PGDATABASE'] ?? 'osmolane',
     },
+    publicBaseUrl: (env['PUBLIC_URL'] || `http://127.0.0.1:${port}`).replace(/\/+$/, ''),
+    smtpUrl: env['SMTP_URL'] || null,
+    mailFrom: env['MAIL_FROM'] || 'Osmolane <no-reply@osmolane.invalid>',
+    devRoutes: !production,
+    accessTokenSeconds: numberFrom(env['ACCESS_TOKEN_SECONDS'], 15 * 60),
+    refreshTokenDays: numberFrom(env['REFRESH_TOKEN_DAYS'], 14),
+    passwordHashCost: numberFrom(env['BCRYPT_COST'], 11),
+    rateLimits: {
+      signIn: { limit: numberFrom(env['SIGN_IN_LIMIT'], 10), windowMs: window },
+      reset: { limit: numberFrom(env['RESET_LIMIT'], 10), windowMs: window },
+    },
+    allowSignUp: env['ALLOW_SIGN_UP'] !== '0',
+    seedDemo: env['SEED_DEMO'] === '1',
+    demoPassword: env['DEMO_PASSWORD'] || 'osmolane-demo',
   };
 }

@@ -1,4 +1,22 @@
+import { CommentSchema, DesignSchema, RevisionSchema, RunBlobSchema, RunSchema } from './design';
+import { ActivityEventSchema, LibraryItemSchema } from './library';
+import { PasswordResetSchema, SessionSchema } from './session';
 import { UserSchema } from './user';
+import { InvitationSchema, MembershipSchema, WorkspaceSchema } from './workspace';
 
 /** Every entity of the server, listed explicitly (no folder scanning). */
-export const entities = [UserSchema];
+export const entities = [
+  UserSchema,
+  WorkspaceSchema,
+  MembershipSchema,
+  InvitationSchema,
+  SessionSchema,
+  PasswordResetSchema,
+  DesignSchema,
+  RevisionSchema,
+  RunSchema,
+  RunBlobSchema,
+  CommentSchema,
+  LibraryItemSchema,
+  ActivityEventSchema,
+];
