@@ -1,26 +1,26 @@
-import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { MatCardModule } from '@angular/material/card';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialogModule } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { catchError, map, of } from 'rxjs';
-import type { HealthResponse } from '../../../../shared/api';
+import { Api } from '../../core/api';
 import { SOLVER } from '../../core/solver-client';
 
-/** The landing screen: what Osmolane is for, and whether the server and the solver worker answer. */
+/** What Osmolane is, and whether the server and the solver worker answer. */
 @Component({
-  selector: 'osm-home',
-  imports: [MatCardModule, MatIconModule],
-  templateUrl: './home.html',
-  styleUrl: './home.scss',
+  selector: 'osm-about-dialog',
+  imports: [MatDialogModule, MatButtonModule, MatIconModule],
+  templateUrl: './about-dialog.html',
+  styleUrl: './about-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class Home {
+export class AboutDialog {
   private readonly solver = inject(SOLVER);
 
   protected readonly health = toSignal(
-    inject(HttpClient)
-      .get<HealthResponse>('/api/health')
+    inject(Api)
+      .health()
       .pipe(
         map((h) => `${h.status}, database ${h.database}, version ${h.version}`),
         catchError(() => of('not reachable')),
