@@ -1,0 +1,142 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap } from 'rxjs';
+import { Api } from '../../core/api';
+import type { Design, DesignSummary, Page } from '../../core/api-types';
+import { errorMessage } from '../../core/error-message';
+import { canEdit } from '../../core/roles';
+import { WorkspaceContext } from '../../core/workspace-context';
+import { ReviewChip } from '../../ui/review-chip';
+import { NewDesignDialog, type NewDesignData } from './new-design-dialog';
+
+type SortKey = 'name' | 'updatedAt' | 'reviewState';
+
+interface Query {
+  wid: string | number | null;
+  q: string;
+  sort: SortKey;
+  order: 'asc' | 'desc';
+  pageIndex: number;
+  pageSize: number;
+  reload: number;
+}
+
+/** The workspace's designs: a server-side sorted, filtered and paged table, and "New design". */
+@Component({
+  selector: 'osm-design-list',
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    ReviewChip,
+  ],
+  templateUrl: './design-list.html',
+  styleUrl: './design-list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DesignList {
+  private readonly api = inject(Api);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
+  protected readonly context = inject(WorkspaceContext);
+
+  protected readonly columns = ['name', 'reviewState', 'updatedAt', 'updatedBy'];
+  protected readonly pageSizes = [10, 25, 50];
+  protected readonly filter = new FormControl('', { nonNullable: true });
+  protected readonly mayCreate = computed(() => canEdit(this.context.role()));
+
+  private readonly query = signal<Query>({ wid: null, q: '', sort: 'updatedAt', order: 'desc', pageIndex: 0, pageSize: 25, reload: 0 });
+  protected readonly sort = computed(() => ({ active: this.query().sort, direction: this.query().order }));
+  protected readonly pageIndex = computed(() => this.query().pageIndex);
+  protected readonly pageSize = computed(() => this.query().pageSize);
+
+  protected readonly loading = signal(true);
+  protected readonly error = signal<string | null>(null);
+  protected readonly page = signal<Page<DesignSummary>>({ items: [], total: 0 });
+
+  constructor() {
+    const wid = computed(() => this.context.current()?.id ?? null);
+    toObservable(wid)
+      .pipe(takeUntilDestroyed())
+      .subscribe((id) => this.query.update((q) => ({ ...q, wid: id, pageIndex: 0 })));
+
+    this.filter.valueChanges
+      .pipe(
+        debounceTime(250),
+        map((v) => v.trim()),
+        distinctUntilChanged(),
+        takeUntilDestroyed(),
+      )
+      .subscribe((q) => this.query.update((s) => ({ ...s, q, pageIndex: 0 })));
+
+    toObservable(this.query)
+      .pipe(
+        tap(() => {
+          this.loading.set(true);
+          this.error.set(null);
+        }),
+        switchMap((q) =>
+          q.wid === null
+            ? of<Page<DesignSummary>>({ items: [], total: 0 })
+            : this.api
+                .designs(q.wid, { q: q.q, sort: q.sort, order: q.order, limit: q.pageSize, offset: q.pageIndex * q.pageSize })
+                .pipe(
+                  catchError((err: unknown) => {
+                    this.error.set(errorMessage(err));
+                    return of<Page<DesignSummary>>({ items: [], total: 0 });
+                  }),
+                ),
+        ),
+        takeUntilDestroyed(),
+      )
+      .subscribe((page) => {
+        this.page.set(page);
+        this.loading.set(false);
+      });
+  }
+
+  protected onSort(sort: Sort): void {
+    const key = (sort.active as SortKey) || 'updatedAt';
+    const order = sort.direction || (key === 'updatedAt' ? 'desc' : 'asc');
+    this.query.update((q) => ({ ...q, sort: key, order, pageIndex: 0 }));
+  }
+
+  protected onPage(event: PageEvent): void {
+    this.query.update((q) => ({ ...q, pageIndex: event.pageIndex, pageSize: event.pageSize }));
+  }
+
+  protected clearFilter(): void {
+    this.filter.setValue('');
+  }
+
+  protected newDesign(): void {
+    const ws = this.context.current();
+    if (!ws) return;
+    this.dialog
+      .open<NewDesignDialog, NewDesignData, Design>(NewDesignDialog, { data: { workspaceId: ws.id }, width: '720px', maxWidth: '95vw', autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .subscribe((design) => {
+        if (design) void this.router.navigate(['/designs', String(design.id)]);
+      });
+  }
+}
