@@ -1,0 +1,28 @@
+import { Component, input, output } from '@angular/core';
+import type { DesignDocument } from '../../../../../shared/design';
+
+/**
+ * Stand-ins for the design page's tab contents in unit tests: the same selectors, inputs and outputs as the
+ * real Sketch, Conditions and Fields components, and nothing else.
+ */
+@Component({ selector: 'osm-sketch-editor', template: '<p>{{ readOnly() ? "read-only" : "editable" }}</p>' })
+export class SketchEditor {
+  readonly document = input.required<DesignDocument>();
+  readonly readOnly = input(false);
+  readonly documentChange = output<DesignDocument>();
+}
+
+@Component({ selector: 'osm-conditions-panel', template: '<p>{{ readOnly() ? "read-only" : "editable" }}</p>' })
+export class ConditionsPanel {
+  readonly document = input.required<DesignDocument>();
+  readonly readOnly = input(false);
+  readonly documentChange = output<DesignDocument>();
+}
+
+@Component({ selector: 'osm-fields-view', template: '<p>revision {{ revisionId() ?? "none" }}</p>' })
+export class FieldsView {
+  readonly document = input.required<DesignDocument>();
+  readonly revisionId = input<string | number | null>(null);
+  readonly readOnly = input(false);
+  readonly runSaved = output<void>();
+}
