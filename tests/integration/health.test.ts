@@ -41,14 +41,14 @@ describe('error shape of api.md', () => {
   it('answers 400 for malformed JSON and 413 for a body over the limit', async () => {
     const bad = await fetch(`${base}/api/health`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{"a":' });
     expect(bad.status).toBe(400);
-    expect((await bad.json()).error.code).toBe('invalid');
+    expect(((await bad.json()) as { error: { code: string } }).error.code).toBe('invalid');
     const big = await fetch(`${base}/api/health`, {
       method: 'POST',
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify({ pad: 'x'.repeat(4096) }),
     });
     expect(big.status).toBe(413);
-    expect((await big.json()).error.code).toBe('too-large');
+    expect(((await big.json()) as { error: { code: string } }).error.code).toBe('too-large');
   });
 
   it('sends security headers from helmet', async () => {
