@@ -30,7 +30,7 @@ const RECT: FieldSpec<Rect>[] = [
   { key: 'height', label: 'Width (across)', dimension: 'length', defaultUnit: 'um', positive: true, get: (s) => s.height, set: (s, v) => ({ ...s, height: v }) },
   {
     key: 'angle',
-    label: 'Angle (about its centre)',
+    label: 'Angle',
     dimension: 'angle',
     defaultUnit: 'deg',
     get: (s) => s.angle,

@@ -92,7 +92,7 @@ let nextCanvasId = 0;
   styleUrl: './sketch-canvas.scss',
   encapsulation: ViewEncapsulation.None,
   changeDetection: ChangeDetectionStrategy.OnPush,
-  host: { class: 'osm-sketch-canvas', '[attr.data-cursor]': 'cursor()' },
+  host: { class: 'osm-sketch-canvas', '[attr.data-cursor]': 'cursor()', '[attr.data-view]': 'viewText()' },
 })
 export class SketchCanvas {
   readonly document = input.required<DesignDocument>();
@@ -116,9 +116,16 @@ export class SketchCanvas {
   private readonly transform = signal<d3.ZoomTransform>(d3.zoomIdentity);
   private readonly destroyRef = inject(DestroyRef);
   private zoom?: d3.ZoomBehavior<SVGSVGElement, unknown>;
+  /** Set once the engineer pans or zooms; until then the view follows the size of the drawing. */
+  private userMoved = false;
 
   /** Screen pixels per metre at the current zoom. */
   readonly pixelsPerMetre = computed(() => this.transform().k * UM);
+  /** The view as "tx ty k" (screen px = t + k · µm, y flipped), for tests that click at layout points. */
+  protected readonly viewText = computed(() => {
+    const t = this.transform();
+    return `${t.x} ${t.y} ${t.k}`;
+  });
   /** The snap step (m) for the current zoom; the grid is drawn at this step. */
   readonly snapStep = computed(() => snapStep(this.pixelsPerMetre()));
 
@@ -203,9 +210,12 @@ export class SketchCanvas {
 
     const measure = () => {
       const r = svgEl.getBoundingClientRect();
-      if (r.width > 0 && r.height > 0) this.size.set({ width: r.width, height: r.height });
+      if (r.width > 0 && r.height > 0 && (r.width !== this.size().width || r.height !== this.size().height)) {
+        this.size.set({ width: r.width, height: r.height });
+        // Until the engineer pans or zooms, keep the whole layout in view as the drawing finds its size.
+        if (!this.userMoved) this.fit();
+      }
     };
-    measure();
     if (typeof ResizeObserver !== 'undefined') {
       const observer = new ResizeObserver(measure);
       observer.observe(svgEl);
@@ -233,8 +243,12 @@ export class SketchCanvas {
         if (mode === 'pan-empty') return hit === null;
         return true;
       })
-      .on('zoom', (event: d3.D3ZoomEvent<SVGSVGElement, unknown>) => this.transform.set(event.transform));
+      .on('zoom', (event: d3.D3ZoomEvent<SVGSVGElement, unknown>) => {
+        if (event.sourceEvent) this.userMoved = true;
+        this.transform.set(event.transform);
+      });
     svg.call(this.zoom).on('dblclick.zoom', null);
+    measure();
     this.fit();
   }
 
@@ -493,11 +507,13 @@ export class SketchCanvas {
     const ax = svg.select<SVGGElement>('g.axis.x').attr('transform', `translate(0,${height - AXIS_BAND})`);
     ax.selectAll('rect.band').data([0]).join('rect').attr('class', 'band').attr('width', width).attr('height', AXIS_BAND);
     ax.call(d3.axisBottom(xs).ticks(Math.max(2, Math.floor(width / 90))).tickFormat(d3.format('~g')).tickSizeOuter(0));
-    ax.selectAll('text.unit').data([0]).join('text').attr('class', 'unit').attr('x', width - 6).attr('y', 15).text('x (µm)');
+    ax.selectAll<SVGGElement, number>('.tick').attr('display', (v) => (xs(v) < AXIS_LEFT + 14 || xs(v) > width - 14 ? 'none' : null));
     const ay = svg.select<SVGGElement>('g.axis.y').attr('transform', `translate(${AXIS_LEFT},0)`);
-    ay.selectAll('rect.band').data([0]).join('rect').attr('class', 'band').attr('x', -AXIS_LEFT).attr('width', AXIS_LEFT).attr('height', height - AXIS_BAND);
+    ay.selectAll('rect.band').data([0]).join('rect').attr('class', 'band').attr('x', -AXIS_LEFT).attr('width', AXIS_LEFT).attr('height', height);
     ay.call(d3.axisLeft(ys).ticks(Math.max(2, Math.floor(height / 70))).tickFormat(d3.format('~g')).tickSizeOuter(0));
-    ay.selectAll('text.unit').data([0]).join('text').attr('class', 'unit').attr('x', 6).attr('y', 14).text('y (µm)');
+    ay.selectAll<SVGGElement, number>('.tick').attr('display', (v) => (ys(v) < 8 || ys(v) > height - AXIS_BAND - 8 ? 'none' : null));
+    // Both axes are in micrometres: the unit sits in the corner where they meet.
+    ay.selectAll('text.unit').data([0]).join('text').attr('class', 'unit').attr('x', -AXIS_LEFT / 2).attr('y', height - AXIS_BAND / 2).attr('dy', '0.35em').text('µm');
 
     // Scale bar, bottom left above the axis.
     const barLength = scaleBarLength(t.k * UM, 110);

@@ -7,7 +7,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { DesignDocument, DesignProblem, Port, Shape } from '../../../../shared/design';
-import { fluidRegion } from '../../../../solver/geometry/fluid-region';
 import { discretiseDesign } from '../../../../solver/grid/discretise';
 import { quantityControl, quantityError, readQuantity, type QuantityRule } from '../../ui/quantity-validator';
 import { formatQuantity } from '../../ui/units';
@@ -15,6 +14,7 @@ import { emptyHistory, record, redo, undo, type History } from './design-history
 import { nextPortId, portSegmentNear, sameSegment } from './port-placement';
 import { ShapeInspector } from './shape-inspector';
 import { portsOnShape, rotatePort, rotateShape, shapeBounds, shapePivot, translatePort, translateShape, wrapAngle } from './shape-transform';
+import { fluidOutline } from './sketch-path';
 import { SketchCanvas, type CanvasPointer, type DragMode, type Selection, type SketchPreview } from './sketch-canvas';
 import { TOOLS, toolByKey, type ToolId } from './sketch-tools';
 import { snapAngle } from './snap';
@@ -36,8 +36,6 @@ type Drag =
   | { kind: 'rotate'; index: number; pivot: Vec; startAngle: number; base: DesignDocument; ports: number[] }
   | { kind: 'chamber'; start: Vec };
 
-/** Arc tolerance for the drawn outline (relative to the radius): invisible on screen, far cheaper than the solver's. */
-const DRAWING_ARC_TOLERANCE = 1e-3;
 /** Grid cells the live checks may use, to keep them light on the main thread. */
 const LIVE_CHECK_MAX_CELLS = 250_000;
 /** Problems about the solver's resolution belong to the solve, not to the drawing. */
@@ -115,13 +113,7 @@ export class SketchEditor {
 
   /** What the drawing shows: the drag in progress, or the document. */
   protected readonly shown = computed(() => this.draft() ?? this.doc());
-  protected readonly outline = computed<Vec[][]>(() => {
-    try {
-      return fluidRegion(this.shown().shapes, DRAWING_ARC_TOLERANCE).polygons.flat();
-    } catch {
-      return [];
-    }
-  });
+  protected readonly outline = computed<Vec[][]>(() => fluidOutline(this.shown().shapes));
   protected readonly problems = signal<DesignProblem[]>([]);
   protected readonly errorCount = computed(() => this.problems().filter((p) => p.severity === 'error').length);
 
