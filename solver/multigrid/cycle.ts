@@ -1,5 +1,5 @@
 import { coarsen, prolongAdd, restrict } from './coarsen';
-import { denseSolver, type DenseSolver } from './dense';
+import { bandedCost, coarsestSolver, type CoarsestSolver } from './banded';
 import { residual, type Operator5 } from './operator';
 import { smoothRedBlack } from './smooth';
 
@@ -10,12 +10,20 @@ export interface Hierarchy {
   b: Float64Array[];
   x: Float64Array[];
   r: Float64Array[];
-  coarsest: DenseSolver;
+  coarsest: CoarsestSolver;
   /** Red–black sweeps before and after the coarse-grid correction. */
   sweeps: number;
 }
 
+/** Coarsening stops once a level has this few active volumes ... */
 const COARSEST_CELLS = 96;
+/**
+ * ... or once its banded Cholesky costs at most this many operations (about a millisecond). Stopping
+ * early keeps the coarsest level fine enough to see the walls between neighbouring channels: a
+ * level coarser than the wall between two channels joins them and spoils the coarse correction
+ * (the serpentine benchmark went from 8 to 19 iterations when its legs merged on the last level).
+ */
+const COARSEST_FACTOR_COST = 2e5;
 
 function activeCount(op: Operator5): number {
   let n = 0;
@@ -23,11 +31,11 @@ function activeCount(op: Operator5): number {
   return n;
 }
 
-/** Builds levels by coarsening until the active unknowns are few enough for an exact solve. */
+/** Builds levels by coarsening until the coarsest level is small or cheap enough for an exact solve. */
 export function buildHierarchy(fine: Operator5, sweeps = 2): Hierarchy {
   const levels = [fine];
   let n = activeCount(fine);
-  while (n > COARSEST_CELLS) {
+  while (n > COARSEST_CELLS && bandedCost(levels[levels.length - 1], n) > COARSEST_FACTOR_COST) {
     const last = levels[levels.length - 1];
     const next = coarsen(last);
     const m = activeCount(next);
@@ -35,13 +43,15 @@ export function buildHierarchy(fine: Operator5, sweeps = 2): Hierarchy {
     levels.push(next);
     n = m;
   }
+  // Level 0's b and x are the caller's, and the coarsest level needs no residual: leave those empty.
+  const last = levels.length - 1;
   const size = (op: Operator5) => op.n1 * op.n2;
   return {
     levels,
-    b: levels.map((op) => new Float64Array(size(op))),
-    x: levels.map((op) => new Float64Array(size(op))),
-    r: levels.map((op) => new Float64Array(size(op))),
-    coarsest: denseSolver(levels[levels.length - 1]),
+    b: levels.map((op, l) => new Float64Array(l === 0 ? 0 : size(op))),
+    x: levels.map((op, l) => new Float64Array(l === 0 ? 0 : size(op))),
+    r: levels.map((op, l) => new Float64Array(l === last ? 0 : size(op))),
+    coarsest: coarsestSolver(levels[levels.length - 1]),
     sweeps,
   };
 }
