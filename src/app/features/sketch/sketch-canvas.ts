@@ -118,6 +118,8 @@ export class SketchCanvas {
   private zoom?: d3.ZoomBehavior<SVGSVGElement, unknown>;
   /** Set once the engineer pans or zooms; until then the view follows the size of the drawing. */
   private userMoved = false;
+  /** The document the view was last fitted to. */
+  private fittedDocument: DesignDocument | null = null;
 
   /** Screen pixels per metre at the current zoom. */
   readonly pixelsPerMetre = computed(() => this.transform().k * UM);
@@ -156,6 +158,7 @@ export class SketchCanvas {
   /** Zooms to show the whole layout (or a default 1 mm view when it is empty). */
   fit(): void {
     const doc = this.document();
+    this.fittedDocument = doc;
     const all: Bounds[] = doc.shapes.map(shapeBounds);
     for (const p of doc.ports) all.push([Math.min(p.from[0], p.to[0]), Math.min(p.from[1], p.to[1]), Math.max(p.from[0], p.to[0]), Math.max(p.from[1], p.to[1])]);
     this.fitBounds(unionBounds(all) ?? [-1e-4, -1e-4, 1e-3, 6e-4]);
@@ -173,6 +176,7 @@ export class SketchCanvas {
   /** Pans so that the point (m) is in the middle, keeping the zoom. */
   centreOn(p: readonly [number, number]): void {
     const { width, height } = this.size();
+    if (!this.zoom) return;
     const t = this.transform();
     this.applyTransform(d3.zoomIdentity.translate(AXIS_LEFT + (width - AXIS_LEFT) / 2 - t.k * p[0] * UM, (height - AXIS_BAND) / 2 + t.k * p[1] * UM).scale(t.k));
   }
@@ -200,8 +204,8 @@ export class SketchCanvas {
     world.append('g').attr('class', 'zones');
     world.append('path').attr('class', 'outline');
     world.append('g').attr('class', 'shapes');
-    world.append('g').attr('class', 'ports');
     world.append('path').attr('class', 'selected');
+    world.append('g').attr('class', 'ports');
     world.append('g').attr('class', 'preview');
     svg.append('g').attr('class', 'overlay');
     svg.append('g').attr('class', 'axis x');
@@ -210,11 +214,14 @@ export class SketchCanvas {
 
     const measure = () => {
       const r = svgEl.getBoundingClientRect();
-      if (r.width > 0 && r.height > 0 && (r.width !== this.size().width || r.height !== this.size().height)) {
-        this.size.set({ width: r.width, height: r.height });
-        // Until the engineer pans or zooms, keep the whole layout in view as the drawing finds its size.
-        if (!this.userMoved) this.fit();
-      }
+      const before = this.size();
+      if (!(r.width > 0 && r.height > 0) || (r.width === before.width && r.height === before.height)) return;
+      const centre = this.toWorld([AXIS_LEFT + (before.width - AXIS_LEFT) / 2, (before.height - AXIS_BAND) / 2]);
+      this.size.set({ width: r.width, height: r.height });
+      // Until the engineer pans, zooms or edits, the whole layout stays in view as the drawing finds its size;
+      // after that a resize keeps the middle of the view where it was.
+      if (!this.userMoved && this.document() === this.fittedDocument) this.fit();
+      else this.centreOn(centre);
     };
     if (typeof ResizeObserver !== 'undefined') {
       const observer = new ResizeObserver(measure);
