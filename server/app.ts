@@ -33,6 +33,8 @@ export interface AppLocals {
   services: Services;
   routes: RouteInfo[];
   mailbox: Mailbox;
+  /** Resolves when no API handler is running (for shutdown). */
+  idle: () => Promise<void>;
 }
 
 export function appLocals(app: Express): AppLocals {
@@ -79,7 +81,7 @@ export function createApp(ctx: AppContext): Express {
   if (config.devRoutes) devRoutes(api, mailbox);
   api.router.use(notFoundRoute);
   app.use('/api', api.router);
-  const locals: AppLocals = { services, routes: api.routes, mailbox };
+  const locals: AppLocals = { services, routes: api.routes, mailbox, idle: () => api.idle() };
   Object.assign(app.locals, locals);
 
   const index = join(config.webRoot, 'index.html');

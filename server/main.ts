@@ -1,5 +1,5 @@
 import type { Server } from 'node:http';
-import { createApp } from './app';
+import { appLocals, createApp } from './app';
 import { loadConfig } from './config';
 import { openDatabase } from './db/orm';
 import { startMail } from './mail';
@@ -31,6 +31,7 @@ async function main(): Promise<void> {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
+      await appLocals(app).idle();
       await mail.close().catch((err: unknown) => console.error('[server] mail did not stop cleanly:', err));
       await orm.close(true);
       process.exit(0);

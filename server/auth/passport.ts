@@ -3,7 +3,7 @@ import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { ServerConfig } from '../config';
 import { ApiError } from '../errors';
-import { isSessionId, TOKEN_AUDIENCE, TOKEN_ISSUER, type AccessClaims } from './tokens';
+import { isSessionId, TOKEN_AUDIENCE, TOKEN_ISSUER, tokenKey, type AccessClaims } from './tokens';
 
 /** The person behind a request's access token. */
 export interface SignedInUser {
@@ -42,7 +42,8 @@ export function createAuthMiddleware(config: ServerConfig, findSession: SessionL
     new JwtStrategy(
       {
         jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
-        secretOrKey: config.tokenSecret,
+        // A KeyObject (see tokenKey); passport-jwt hands it to jsonwebtoken as is, its types just do not say so.
+        secretOrKeyProvider: (_req, _raw, done) => done(null, tokenKey(config.tokenSecret) as unknown as Buffer),
         algorithms: ['HS256'],
         issuer: TOKEN_ISSUER,
         audience: TOKEN_AUDIENCE,

@@ -1,3 +1,4 @@
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import type { Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
 import type { ServerConfig } from '../config';
@@ -13,9 +14,21 @@ export interface AccessClaims {
   sid: string;
 }
 
+const keys = new Map<string, KeyObject>();
+
+/**
+ * The HMAC key as a KeyObject. Given a string, jsonwebtoken first tries to read it as a PEM public or private key
+ * on every call, which costs more than the HMAC itself; a KeyObject skips that.
+ */
+export function tokenKey(secret: string): KeyObject {
+  let key = keys.get(secret);
+  if (!key) keys.set(secret, (key = createSecretKey(Buffer.from(secret, 'utf8'))));
+  return key;
+}
+
 export function signAccessToken(config: ServerConfig, userId: number, sessionId: string): string {
   const claims: AccessClaims = { sub: String(userId), sid: sessionId };
-  return jwt.sign(claims, config.tokenSecret, {
+  return jwt.sign(claims, tokenKey(config.tokenSecret), {
     algorithm: 'HS256',
     expiresIn: config.accessTokenSeconds,
     issuer: TOKEN_ISSUER,

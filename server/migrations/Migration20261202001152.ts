@@ -4,6 +4,8 @@ export class Migration20261202001152 extends Migration {
 
   override async up(): Promise<void> {
     this.addSql(`create table "run_blobs" ("key" varchar(200) not null, "bytes" bytea not null, "size" int not null, "created_at" timestamptz not null, constraint "run_blobs_pkey" primary key ("key"));`);
+    // Field blobs arrive compressed: store them out of line without trying to compress them again (by hand).
+    this.addSql(`alter table "run_blobs" alter column "bytes" set storage external;`);
 
     this.addSql(`create table "sessions" ("id" uuid not null, "user_id" int not null, "refresh_hash" varchar(64) not null, "previous_hash" varchar(64) null, "rotated_at" timestamptz not null, "created_at" timestamptz not null, "expires_at" timestamptz not null, constraint "sessions_pkey" primary key ("id"));`);
     this.addSql(`create index "sessions_user_id_index" on "sessions" ("user_id");`);

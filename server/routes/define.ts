@@ -23,23 +23,38 @@ type UserHandler = (req: Request, res: Response, user: SignedInUser) => Promise<
 export class ApiRoutes {
   readonly router = Router();
   readonly routes: RouteInfo[] = [];
+  private running = 0;
+  private drained: (() => void)[] = [];
 
   constructor(readonly auth: AuthMiddleware) {}
+
+  /**
+   * Resolves when no handler is running. A client that hangs up does not stop its handler, so at shutdown the
+   * server waits for this (after closing its sockets) before closing the database.
+   */
+  idle(): Promise<void> {
+    return this.running === 0 ? Promise.resolve() : new Promise((r) => this.drained.push(r));
+  }
+
+  private async track(work: () => Promise<unknown> | unknown): Promise<void> {
+    this.running++;
+    try {
+      await work();
+    } finally {
+      if (--this.running === 0) for (const r of this.drained.splice(0)) r();
+    }
+  }
 
   /** A route anyone may call; `before` runs first (rate limits, optional sign-in). */
   open(method: Method, path: string, handler: Handler, ...before: RequestHandler[]): void {
     this.routes.push({ method: method.toUpperCase() as Uppercase<Method>, path: `/api${path}`, signedIn: false });
-    this.router[method](path, ...before, async (req, res) => {
-      await handler(req, res);
-    });
+    this.router[method](path, ...before, (req, res) => this.track(() => handler(req, res)));
   }
 
   /** A route for signed-in users; the handler gets the user. Role checks happen in the handler (via AccessService). */
   user(method: Method, path: string, handler: UserHandler): void {
     this.routes.push({ method: method.toUpperCase() as Uppercase<Method>, path: `/api${path}`, signedIn: true });
-    this.router[method](path, this.auth.requireUser, async (req, res) => {
-      await handler(req, res, req.user!);
-    });
+    this.router[method](path, this.auth.requireUser, (req, res) => this.track(() => handler(req, res, req.user!)));
   }
 }
 

@@ -78,21 +78,23 @@ export class DesignService {
     private readonly activity: ActivityService,
   ) {}
 
+  /** One round trip: the page with the total alongside (a count only when the page is past the end). */
   async list(workspaceId: number, q: { sort: DesignSort; order: 'asc' | 'desc'; limit: number; offset: number; q?: string }): Promise<Page<DesignSummary>> {
     const em = this.orm.em.fork();
     const filter = q.q ? ' and d.name ilike ?' : '';
     const params: unknown[] = q.q ? [workspaceId, containsPattern(q.q)] : [workspaceId];
     const dir = q.order === 'asc' ? 'asc' : 'desc';
-    const [rows, count] = await Promise.all([
-      queryRows<Row>(
-        em,
-        `select ${COLUMNS} from designs d left join users u on u.id = d.updated_by_id
-         where d.workspace_id = ?${filter} order by ${ORDER[q.sort]} ${dir}, d.id ${dir} limit ? offset ?`,
-        [...params, q.limit, q.offset],
-      ),
-      queryRow<{ n: string }>(em, `select count(*) as n from designs d where d.workspace_id = ?${filter}`, params),
-    ]);
-    return { items: rows.map(summary), total: Number(count?.n ?? 0) };
+    const rows = await queryRows<Row & { total: string }>(
+      em,
+      `select ${COLUMNS}, count(*) over () as total from designs d left join users u on u.id = d.updated_by_id
+       where d.workspace_id = ?${filter} order by ${ORDER[q.sort]} ${dir}, d.id ${dir} limit ? offset ?`,
+      [...params, q.limit, q.offset],
+    );
+    let total = Number(rows[0]?.total ?? 0);
+    if (!rows.length && q.offset > 0) {
+      total = Number((await queryRow<{ n: string }>(em, `select count(*) as n from designs d where d.workspace_id = ?${filter}`, params))?.n ?? 0);
+    }
+    return { items: rows.map(summary), total };
   }
 
   async get(access: Access, designId: number): Promise<DesignDetail> {
