@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, input, linkedSignal, output, signal, untracked, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, output, signal, untracked, viewChild } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -7,10 +7,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { DesignDocument, DesignProblem, Port, Shape } from '../../../../shared/design';
-import { discretiseDesign } from '../../../../solver/grid/discretise';
 import { quantityControl, quantityError, readQuantity, type QuantityRule } from '../../ui/quantity-validator';
 import { formatQuantity } from '../../ui/units';
 import { emptyHistory, record, redo, undo, type History } from './design-history';
+import { GEOMETRY_CHECKS } from './live-checks';
 import { nextPortId, portSegmentNear, sameSegment } from './port-placement';
 import { ShapeInspector } from './shape-inspector';
 import { portsOnShape, rotatePort, rotateShape, shapeBounds, shapePivot, translatePort, translateShape, wrapAngle } from './shape-transform';
@@ -36,21 +36,8 @@ type Drag =
   | { kind: 'rotate'; index: number; pivot: Vec; startAngle: number; base: DesignDocument; ports: number[] }
   | { kind: 'chamber'; start: Vec };
 
-/** Grid cells the live checks may use, to keep them light on the main thread. */
-const LIVE_CHECK_MAX_CELLS = 250_000;
-/** Problems about the solver's resolution belong to the solve, not to the drawing. */
-const RESOLUTION_CODES = new Set(['under-resolved', 'grid-capped']);
 /** Pointer distance (screen px) within which the Port tool finds the outline and Freeform closes. */
 const PICK_PIXELS = 10;
-
-/** Geometry checks of the solver (solver/grid/discretise.ts) on the current design, without resolution notes. */
-export function liveProblems(doc: DesignDocument): DesignProblem[] {
-  try {
-    return discretiseDesign(doc, { maxCells: LIVE_CHECK_MAX_CELLS }).problems.filter((p) => !RESOLUTION_CODES.has(p.code));
-  } catch (error) {
-    return [{ code: 'geometry-failed', severity: 'error', message: `The layout could not be checked: ${error instanceof Error ? error.message : String(error)}` }];
-  }
-}
 
 /**
  * The Sketch tab: draw the channel layout with the tools, edit exact dimensions in the side panel, undo and
@@ -79,6 +66,7 @@ export class SketchEditor {
   readonly readOnly = input(false);
   readonly documentChange = output<DesignDocument>();
 
+  private readonly checks = inject(GEOMETRY_CHECKS);
   protected readonly tools = TOOLS;
   protected readonly junctionKinds = JUNCTION_KINDS;
   private readonly canvas = viewChild(SketchCanvas);
@@ -152,7 +140,14 @@ export class SketchEditor {
     // Live validation, a moment after the last change.
     effect((onCleanup) => {
       const doc = this.doc();
-      const timer = setTimeout(() => this.problems.set(liveProblems(doc)), 150);
+      const timer = setTimeout(() => {
+        Promise.resolve(this.checks(doc)).then(
+          (problems) => {
+            if (this.doc() === doc) this.problems.set(problems);
+          },
+          () => undefined,
+        );
+      }, 200);
       onCleanup(() => clearTimeout(timer));
     });
     const bind = (control: typeof this.straightWidth, key: keyof ReturnType<typeof this.settings>, rule: QuantityRule) =>
