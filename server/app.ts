@@ -78,7 +78,8 @@ export function createApp(ctx: AppContext): Express {
   workspaceRoutes(api, services);
   designRoutes(api, services);
   libraryRoutes(api, services);
-  if (config.devRoutes) devRoutes(api, mailbox);
+  // The mailbox holds live invitation and reset links: only outside production, and only for the local stand-in.
+  if (config.devRoutes && !config.smtpUrl) devRoutes(api, mailbox);
   api.router.use(notFoundRoute);
   app.use('/api', api.router);
   const locals: AppLocals = { services, routes: api.routes, mailbox, idle: () => api.idle() };

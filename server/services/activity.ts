@@ -32,6 +32,21 @@ export class ActivityService {
     );
   }
 
+  /**
+   * Like record, but a repeat of the design's latest line (same kind, same person, within `minutes`) updates that
+   * line instead: the app may save after every edit, and the log should not fill with them.
+   */
+  async recordCoalesced(em: EntityManager, entry: ActivityEntry & { designId: number }, minutes = 10): Promise<void> {
+    const updated = await run(
+      em,
+      `update activity_events set message = ?, created_at = now()
+       where id = (select id from activity_events where design_id = ? order by created_at desc, id desc limit 1)
+         and kind = ? and actor_id = ? and created_at > now() - make_interval(mins => ?)`,
+      [entry.message, entry.designId, entry.kind, entry.actorId, minutes],
+    );
+    if (!updated) await this.record(em, entry);
+  }
+
   async list(workspaceId: number, q: { designId?: number; limit: number; offset: number; order: 'asc' | 'desc' }): Promise<Page<ActivityItem>> {
     const em = this.orm.em.fork();
     const where = q.designId === undefined ? 'a.workspace_id = ?' : 'a.workspace_id = ? and a.design_id = ?';

@@ -148,8 +148,12 @@ export class DesignService {
           'version',
         );
       }
-      const back = saved.was === 'mask-ready' ? '; back to draft, as the approved layout changed' : '';
-      await this.activity.record(em, { workspaceId: access.workspaceId, actorId: access.userId, designId, kind: 'design.saved', message: `saved "${saved.name}" as version ${saved.version}${back}` });
+      const entry = { workspaceId: access.workspaceId, actorId: access.userId, designId, kind: 'design.saved' };
+      if (saved.was === 'mask-ready') {
+        await this.activity.record(em, { ...entry, message: `saved "${saved.name}" as version ${saved.version}; back to draft, as the approved layout changed` });
+      } else {
+        await this.activity.recordCoalesced(em, { ...entry, message: `saved "${saved.name}" as version ${saved.version}` });
+      }
     });
     return this.get(access, designId);
   }

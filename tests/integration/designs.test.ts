@@ -208,5 +208,15 @@ describe('revisions, runs and comments', () => {
     expect(r.body.items.map((a: { kind: string }) => a.kind)).toEqual(['revision.created', 'design.created']);
     expect(r.body.items[0]).toMatchObject({ actor: { id: team.editor.id, name: team.editor.name }, designId: d.id });
     expect(r.body.total).toBe(2);
+
+    // Saves in a row by one person make one line, which tells the latest version.
+    for (const version of [1, 2, 3]) await call(t.base, 'PUT', `/api/designs/${d.id}`, { token: team.editor.token, body: { document: validDocument(), version } });
+    await call(t.base, 'PUT', `/api/designs/${d.id}`, { token: team.owner.token, body: { document: validDocument(), version: 4 } });
+    const after = await call(t.base, 'GET', `/api/workspaces/${team.wid}/activity?designId=${d.id}&limit=2`, { token: team.viewer.token });
+    expect(after.body.items.map((a: { kind: string; message: string; actor: { id: number } }) => [a.kind, a.actor.id, a.message])).toEqual([
+      ['design.saved', team.owner.id, 'saved "Logged" as version 5'],
+      ['design.saved', team.editor.id, 'saved "Logged" as version 4'],
+    ]);
+    expect(after.body.total).toBe(4);
   });
 });
