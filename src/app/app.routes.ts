@@ -6,8 +6,9 @@ import { leaveCheckGuard, signedInGuard, signedOutGuard, workspaceGuard } from '
 /** "/": signed in → the workspaces; signed out → sign-in. */
 const startGuard: CanActivateFn = async () => {
   const auth = inject(Auth);
+  const router = inject(Router);
   await auth.restore();
-  return inject(Router).createUrlTree([auth.signedIn() ? '/workspaces' : '/sign-in']);
+  return router.createUrlTree([auth.signedIn() ? '/workspaces' : '/sign-in']);
 };
 
 export const routes: Routes = [

@@ -55,6 +55,7 @@ export class Auth {
     this.accessToken = session.token;
     this.currentUser.set(session.user);
     this.restored.set(true);
+    this.restoring ??= Promise.resolve(); // nothing left to resume on this page
     setHint(true);
     return session.user;
   }

@@ -4,7 +4,7 @@ import { catchError, map, of } from 'rxjs';
 import { Auth } from './auth';
 import { WorkspaceContext } from './workspace-context';
 
-/** Only for signed-in users; others go to sign-in and come back here afterwards. */
+/** Only for signed-in users; others go to sign-in and come back here afterwards. (Inject before any await.) */
 export const signedInGuard: CanActivateFn = async (_route, state) => {
   const auth = inject(Auth);
   const router = inject(Router);
@@ -15,8 +15,9 @@ export const signedInGuard: CanActivateFn = async (_route, state) => {
 /** Sign-in and password reset pages: a signed-in user goes to the workspaces instead. */
 export const signedOutGuard: CanActivateFn = async () => {
   const auth = inject(Auth);
+  const router = inject(Router);
   await auth.restore();
-  return auth.signedIn() ? inject(Router).createUrlTree(['/workspaces']) : true;
+  return auth.signedIn() ? router.createUrlTree(['/workspaces']) : true;
 };
 
 /** Pages of one workspace (`:wid`): makes it the current workspace, or goes back to the list when it is not mine. */

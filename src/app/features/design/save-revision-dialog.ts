@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -19,7 +19,7 @@ export interface SaveRevisionData {
   imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule],
   template: `
     <h2 mat-dialog-title>Save revision{{ data.next ? ' ' + data.next : '' }}</h2>
-    <form (ngSubmit)="submit()" novalidate>
+    <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
       <mat-dialog-content>
         @if (data.reason) {
           <p class="muted">{{ data.reason }}</p>
@@ -27,7 +27,7 @@ export interface SaveRevisionData {
         <p class="muted">A revision freezes the layout and conditions as they are now. It never changes afterwards; runs and comments attach to it.</p>
         <mat-form-field class="note">
           <mat-label>Note</mat-label>
-          <textarea matInput [formControl]="note" rows="3" maxlength="2000" required cdkFocusInitial data-testid="revision-note"></textarea>
+          <textarea matInput formControlName="note" rows="3" maxlength="2000" required cdkFocusInitial data-testid="revision-note"></textarea>
           <mat-hint>What changed, or why this one matters.</mat-hint>
           <mat-hint align="end">{{ note.value.length }} / 2000</mat-hint>
           @if (note.hasError('required') || note.hasError('blank')) {
@@ -48,6 +48,7 @@ export class SaveRevisionDialog {
   private readonly ref = inject(MatDialogRef<SaveRevisionDialog, string>);
   protected readonly data = inject<SaveRevisionData>(MAT_DIALOG_DATA);
   protected readonly note = new FormControl('', { nonNullable: true, validators: [Validators.required, notBlank, Validators.maxLength(2000)] });
+  protected readonly form = new FormGroup({ note: this.note });
 
   protected submit(): void {
     if (this.note.invalid) {

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -51,7 +51,9 @@ export class RevisionPanel {
   protected readonly mayComment = computed(() => canComment(this.role()));
 
   protected readonly pin = signal<[number, number] | null>(null);
-  protected readonly body = new FormControl('', { nonNullable: true, validators: [Validators.required, notBlank, Validators.maxLength(2000)] });
+  protected readonly body = new FormControl('', { nonNullable: true, validators: [Validators.required, notBlank, Validators.maxLength(5000)] });
+  protected readonly form = new FormGroup({ body: this.body });
+  private readonly formDirective = viewChild(FormGroupDirective);
   protected readonly posting = signal(false);
   protected readonly postError = signal<string | null>(null);
 
@@ -103,7 +105,7 @@ export class RevisionPanel {
     this.api.addComment(this.revision().id, this.body.value.trim(), this.pin()).subscribe({
       next: () => {
         this.posting.set(false);
-        this.body.reset('');
+        this.formDirective()?.resetForm({ body: '' }); // also forgets the submit, so no "required" shows
         this.pin.set(null);
         this.api.comments(this.revision().id).subscribe({ next: (c) => this.comments.set(c) });
       },

@@ -48,7 +48,7 @@ function rule(field: LibraryField): QuantityRule {
 export function fieldValidators(field: LibraryField): ValidatorFn[] {
   const quantity = quantityValidator(rule(field));
   const optional: ValidatorFn = (control) => (typeof control.value === 'string' && control.value.trim() === '' ? null : quantity(control));
-  return field.required ? [Validators.required, quantity] : [optional];
+  return field.required ? [Validators.required, optional] : [optional];
 }
 
 /** The SI value of typed text (after validation), or null for empty text. */

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
-import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked, viewChild } from '@angular/core';
+import { FormBuilder, FormGroupDirective, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -67,6 +67,7 @@ export class MemberList {
   protected readonly inviteError = signal<string | null>(null);
   protected readonly myId = computed(() => String(this.auth.user()?.id ?? ''));
 
+  private readonly inviteDirective = viewChild(FormGroupDirective);
   protected readonly inviteForm = inject(FormBuilder).nonNullable.group({
     email: ['', [Validators.required, Validators.email]],
     role: ['editor' as Role, Validators.required],
@@ -115,7 +116,8 @@ export class MemberList {
     this.api.invite(this.wid(), email.trim(), role).subscribe({
       next: () => {
         this.inviting.set(false);
-        this.inviteForm.reset({ email: '', role });
+        // resetForm also forgets that the form was submitted, so no "required" message shows on the empty field.
+        this.inviteDirective()?.resetForm({ email: '', role });
         this.snack.open(`Invitation sent to ${email.trim()}.`, undefined, { duration: 4000 });
         this.load();
       },
