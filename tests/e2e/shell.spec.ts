@@ -1,32 +1,39 @@
 import { expect, test } from '@playwright/test';
+import { shot, watch } from './helpers';
 
-test('the app shell loads with the bundled font, a healthy server and a running solver worker', async ({ page, baseURL }) => {
-  const consoleErrors: string[] = [];
-  page.on('console', (m) => m.type() === 'error' && consoleErrors.push(m.text()));
-  page.on('pageerror', (e) => consoleErrors.push(e.message));
-  const offsite: string[] = [];
+test('a signed-out visitor lands on sign-in; the bundled font is used, the server is healthy and the solver worker starts', async ({ page, baseURL }) => {
+  const seen = watch(page);
   const fontFiles: string[] = [];
   page.on('request', (r) => {
     const url = new URL(r.url());
-    if (url.hostname !== '127.0.0.1' && url.protocol !== 'data:' && url.protocol !== 'blob:') offsite.push(r.url());
     if (/ibm-plex-sans-latin-400-normal.*\.woff2$/.test(url.pathname)) fontFiles.push(url.pathname);
   });
 
   await page.goto('/');
-  await expect(page.getByRole('heading', { name: 'Osmolane' })).toBeVisible();
+  await expect(page).toHaveURL(/\/sign-in$/);
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  await expect(page.getByRole('link', { name: /Osmolane/ })).toBeVisible();
+
+  // The About panel reads the server's health and starts the solver worker.
+  await page.getByRole('button', { name: 'About Osmolane' }).click();
+  await expect(page.getByRole('dialog', { name: 'About Osmolane' })).toBeVisible();
   await expect(page.getByTestId('server-status')).toHaveText(/^ok, database ok/);
   await expect(page.getByTestId('worker-status')).toHaveText('ready');
+  await shot(page, 'about');
+  await page.getByRole('button', { name: 'Close' }).click();
 
   const bodyFont = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
   expect(bodyFont).toContain('IBM Plex Sans');
   await page.evaluate(() => document.fonts.ready);
   expect(await page.evaluate(() => document.fonts.check('16px "IBM Plex Sans"'))).toBe(true);
   expect(fontFiles.length).toBeGreaterThan(0);
+  // Material Symbols are bundled too: an icon renders with the icon font, not as its ligature text's width.
+  expect(await page.evaluate(() => document.fonts.check('24px "Material Symbols Outlined"'))).toBe(true);
 
   const health = await (await page.request.get(`${baseURL}/api/health`)).json();
   expect(health).toMatchObject({ status: 'ok', database: 'ok' });
 
-  await page.screenshot({ path: 'test-results/screens/shell.png', fullPage: true });
-  expect(offsite).toEqual([]);
-  expect(consoleErrors).toEqual([]);
+  await shot(page, 'sign-in');
+  expect(seen.offsite).toEqual([]);
+  expect(seen.errors).toEqual([]);
 });
