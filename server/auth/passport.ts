@@ -28,9 +28,7 @@ export type SessionLookup = (sessionId: string, userId: number) => Promise<Signe
 export interface AuthMiddleware {
   /** 401 unless the request carries a valid access token of an open session. */
   requireUser: RequestHandler;
-  /** Sets req.user for a valid token, 401 for a bad one, and passes requests without one. */
-  optionalUser: RequestHandler;
-  /** Sets req.user for a valid token and passes every request on (for sign-out, which must work regardless). */
+  /** Sets req.user for a valid token and passes every request on (sign-out and accepting an invitation). */
   peekUser: RequestHandler;
 }
 
@@ -59,7 +57,7 @@ export function createAuthMiddleware(config: ServerConfig, findSession: SessionL
     ),
   );
 
-  const authenticate = (mode: 'require' | 'optional' | 'peek'): RequestHandler => (req, res, next) => {
+  const authenticate = (mode: 'require' | 'peek'): RequestHandler => (req, res, next) => {
     if (mode !== 'require' && !req.headers.authorization) return next();
     const handler = passport.authenticate('jwt', { session: false }, (err: unknown, user: SignedInUser | false) => {
       if (err) return next(err);
@@ -70,5 +68,5 @@ export function createAuthMiddleware(config: ServerConfig, findSession: SessionL
     }) as RequestHandler;
     handler(req, res, next);
   };
-  return { requireUser: authenticate('require'), optionalUser: authenticate('optional'), peekUser: authenticate('peek') };
+  return { requireUser: authenticate('require'), peekUser: authenticate('peek') };
 }

@@ -114,6 +114,7 @@ export function authRoutes(api: ApiRoutes, s: Services, config: ServerConfig): v
       sendGrant(res, config, await s.invitations.accept(String(req.params['token']), body, req.user));
     },
     signInLimit,
-    api.auth.optionalUser,
+    // A stale token from an earlier session is no proof either way; the password in the body still is.
+    api.auth.peekUser,
   );
 }

@@ -81,6 +81,14 @@ describe('invitations end to end through the local SMTP server', () => {
     expect(roles).toContainEqual({ id: wid, name: 'Invite lab', role: 'editor' });
   });
 
+  it('takes the password of an existing account even when the browser still sends a stale token', async () => {
+    const existing = await signUp(t.base, 'stale');
+    const token = await inviteAndRead(existing.email, 'viewer');
+    const r = await call(t.base, 'POST', `/api/invitations/${token}/accept`, { token: 'stale.access.token', body: { password: PASSWORD } });
+    expect(r.status).toBe(200);
+    expect(r.body.user.id).toBe(existing.id);
+  });
+
   it('replaces an earlier pending invitation of the same e-mail, and can withdraw one', async () => {
     const email = uniqueEmail('twice');
     const old = await inviteAndRead(email, 'viewer');
