@@ -1,6 +1,7 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { of } from 'rxjs';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
+import { SketchCanvas } from '../sketch/sketch-canvas';
 import { CONDITIONS_LIBRARY, type ConditionsLibrary } from './buffer-library';
 import { ConditionsPanel } from './conditions-panel';
 
@@ -127,6 +128,29 @@ describe('ConditionsPanel', () => {
     await settle(fixture);
     expect(emitted[0].wallZones).toHaveLength(1);
     expect(el.querySelector('[data-testid=zone-0]')).not.toBeNull();
+  });
+
+  it('draws a wall zone on the layout', async () => {
+    await create(design());
+    (el.querySelector('[data-testid=draw-zone]') as HTMLButtonElement).click();
+    await settle(fixture);
+    const canvas = fixture.debugElement.query((de) => de.componentInstance instanceof SketchCanvas).componentInstance as SketchCanvas;
+    const svg = el.querySelector('svg.osm-canvas-svg')!;
+    const fire = (type: string, world: [number, number]) => {
+      const [x, y] = canvas.toScreen(world);
+      svg.dispatchEvent(new MouseEvent(type, { clientX: x, clientY: y, bubbles: true, button: 0 }));
+    };
+    fire('pointerdown', [2e-4, -1e-4]);
+    fire('pointermove', [4e-4, 1e-4]);
+    fire('pointerup', [4e-4, 1e-4]);
+    await settle(fixture);
+    const zone = emitted[0].wallZones[0];
+    expect(zone.zeta).toBe(-0.05);
+    expect(zone.region.type).toBe('rect');
+    if (zone.region.type === 'rect') {
+      expect(zone.region.width).toBeGreaterThan(1e-4);
+      expect(zone.region.height).toBeGreaterThan(1e-4);
+    }
   });
 
   it('is read-only for a viewer', async () => {

@@ -148,6 +148,35 @@ describe('SketchEditor', () => {
     expect(rect.type === 'rect' && rect.height).toBeCloseTo(8e-5, 12);
   });
 
+  it('drags a chamber, closes a freeform outline with Enter and turns a junction preset into several shapes', async () => {
+    const el = await create(design({ shapes: [] }));
+    const svg = el.querySelector('svg.osm-canvas-svg')!;
+    const fire = (type: string, world: [number, number]) => {
+      const [x, y] = canvas().toScreen(world);
+      svg.dispatchEvent(new MouseEvent(type, { clientX: x, clientY: y, bubbles: true, button: 0 }));
+    };
+    await chooseTool(el, 'chamber');
+    fire('pointerdown', [0, 0]);
+    fire('pointermove', [2e-4, 1e-4]);
+    fire('pointerup', [2e-4, 1e-4]);
+    await settle(fixture);
+    expect(emitted[0].shapes[0]).toMatchObject({ type: 'rect', x: 0, y: 0, angle: 0 });
+
+    await chooseTool(el, 'freeform');
+    for (const p of [[3e-4, 0], [5e-4, 0], [4e-4, 2e-4]] as Array<[number, number]>) clickAt(el, p);
+    svg.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
+    await settle(fixture);
+    const poly = emitted[1].shapes[1];
+    expect(poly.type === 'polygon' && poly.points).toHaveLength(3);
+
+    await chooseTool(el, 'junction');
+    (el.querySelector('[data-testid=junction-cross] button') as HTMLButtonElement).click();
+    await settle(fixture);
+    clickAt(el, [0, 6e-4]);
+    await settle(fixture);
+    expect(emitted[2].shapes).toHaveLength(4);
+  });
+
   it('shows the geometry checks', async () => {
     const el = await create(design());
     await new Promise((r) => setTimeout(r, 200));
