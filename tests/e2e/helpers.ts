@@ -22,9 +22,18 @@ export function watch(page: Page): { errors: string[]; offsite: string[] } {
   return { errors, offsite };
 }
 
-/** A full-page screenshot kept as a test artifact. */
+/** A full-page screenshot kept as a test artifact; also checks that nothing overflows the 1280 px wide window. */
 export async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: `test-results/screens/${name}.png`, fullPage: true });
+  const overflow = await page.evaluate(() => {
+    const width = document.documentElement.clientWidth;
+    const wide = Array.from(document.querySelectorAll<HTMLElement>('main *, mat-toolbar *'))
+      .filter((e) => e.getBoundingClientRect().right > width + 1 && getComputedStyle(e).visibility !== 'hidden')
+      .map((e) => `${e.tagName.toLowerCase()}.${e.className}`.slice(0, 80));
+    return { scroll: document.documentElement.scrollWidth, width, wide: wide.slice(0, 5) };
+  });
+  expect(overflow.scroll, `${name}: page wider than the window`).toBeLessThanOrEqual(overflow.width);
+  expect(overflow.wide, `${name}: elements reaching past the right edge`).toEqual([]);
 }
 
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {

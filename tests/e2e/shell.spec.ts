@@ -37,3 +37,18 @@ test('a signed-out visitor lands on sign-in; the bundled font is used, the serve
   expect(seen.offsite).toEqual([]);
   expect(seen.errors).toEqual([]);
 });
+
+test('signing in works with the keyboard alone', async ({ page }) => {
+  await page.goto('/sign-in');
+  await expect(page.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  await page.keyboard.press('Tab'); // brand link
+  let guard = 0;
+  while (!(await page.getByLabel('E-mail').evaluate((e) => e === document.activeElement)) && guard++ < 10) await page.keyboard.press('Tab');
+  await page.keyboard.type('jonas.lindqvist@example.test');
+  await page.keyboard.press('Tab');
+  await expect(page.getByLabel('Password')).toBeFocused();
+  await page.keyboard.type('osmolane-demo');
+  await page.keyboard.press('Enter');
+  await expect(page).toHaveURL(/\/workspaces$/);
+  await expect(page.getByRole('link', { name: 'Tidewater Assay Lab' })).toBeVisible();
+});

@@ -8,6 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { MatTooltipModule } from '@angular/material/tooltip';
+import { Title } from '@angular/platform-browser';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { Subject, debounceTime, firstValueFrom } from 'rxjs';
 import { Api } from '../../core/api';
@@ -72,6 +73,7 @@ export class DesignPage implements LeaveCheck {
   private readonly dialog = inject(MatDialog);
   private readonly snack = inject(MatSnackBar);
   private readonly context = inject(WorkspaceContext);
+  private readonly title = inject(Title);
 
   /** Route parameter `:id`. */
   readonly id = input.required<string>();
@@ -161,6 +163,7 @@ export class DesignPage implements LeaveCheck {
 
   /** Makes `design` (as the server has it) the working copy. */
   private take(design: Design): void {
+    this.title.setTitle(`${design.name} · Osmolane`);
     this.design.set(design);
     this.document.set(design.document);
     this.base = design.document;
