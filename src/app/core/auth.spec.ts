@@ -63,6 +63,23 @@ describe('Auth', () => {
     expect(auth.token()).toBe('tok-2');
   });
 
+  it('renews the access token a minute before it expires', () => {
+    jest.useFakeTimers();
+    try {
+      auth.accept({ ...session, expiresIn: 900 });
+      jest.advanceTimersByTime(839_000);
+      http.expectNone('/api/auth/refresh');
+      jest.advanceTimersByTime(2_000);
+      http.expectOne('/api/auth/refresh').flush({ ...session, token: 'tok-3', expiresIn: 900 });
+      expect(auth.token()).toBe('tok-3');
+      auth.clear();
+      jest.advanceTimersByTime(900_000);
+      http.expectNone('/api/auth/refresh');
+    } finally {
+      jest.useRealTimers();
+    }
+  });
+
   it('signs out on the server with the current token and forgets the session even if the server fails', () => {
     auth.accept(session);
     let done = false;

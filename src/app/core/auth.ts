@@ -20,6 +20,7 @@ export class Auth {
   private readonly restored = signal(false);
   private restoring: Promise<void> | null = null;
   private refreshing: Observable<string> | null = null;
+  private renewal: ReturnType<typeof setTimeout> | null = null;
 
   /** The signed-in user, or null. */
   readonly user = this.currentUser.asReadonly();
@@ -57,7 +58,22 @@ export class Auth {
     this.restored.set(true);
     this.restoring ??= Promise.resolve(); // nothing left to resume on this page
     setHint(true);
+    this.scheduleRenewal(session.expiresIn);
     return session.user;
+  }
+
+  /**
+   * Renews the access token a minute before it expires, so that requests rarely meet a 401 (the interceptor
+   * still refreshes on one). Without `expiresIn` from the server it relies on the interceptor alone.
+   */
+  private scheduleRenewal(expiresIn: number | undefined): void {
+    if (this.renewal !== null) clearTimeout(this.renewal);
+    this.renewal = null;
+    if (!expiresIn || expiresIn <= 90) return;
+    this.renewal = setTimeout(() => {
+      this.renewal = null;
+      this.refresh().subscribe({ error: () => undefined });
+    }, (expiresIn - 60) * 1000);
   }
 
   /** A new access token from the refresh cookie; concurrent callers share one request. Clears the session on failure. */
@@ -89,6 +105,8 @@ export class Auth {
 
   /** Forgets the session in this page. */
   clear(): void {
+    if (this.renewal !== null) clearTimeout(this.renewal);
+    this.renewal = null;
     this.accessToken = null;
     this.currentUser.set(null);
     setHint(false);
