@@ -38,6 +38,13 @@ test('an editor signs in, sees the workspace and its four demo designs, opens on
   await expect(page.getByTestId('save-revision')).toBeVisible();
   await expect(page.getByTestId('read-only')).toHaveCount(0);
   await shot(page, 'design-sketch');
+  await page.getByRole('tab', { name: 'Conditions' }).click();
+  await expect(page).toHaveURL(/tab=conditions/);
+  await expect(page.locator('osm-conditions-panel')).toBeVisible();
+  await shot(page, 'design-conditions');
+  await page.getByRole('tab', { name: 'Fields' }).click();
+  await expect(page.locator('osm-fields-view')).toBeAttached();
+  await shot(page, 'design-fields');
 
   await page.getByRole('tab', { name: 'History' }).click();
   await expect(page).toHaveURL(/tab=history/);
