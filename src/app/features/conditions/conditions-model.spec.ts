@@ -1,5 +1,5 @@
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
-import { addZone, defaultZoneRegion, highVoltagePorts, largestPotential, mobilityOf, removeZone, withBuffer, withPort, withZeta, zetaOf } from './conditions-model';
+import { wallZeta, addZone, defaultZoneRegion, highVoltagePorts, largestPotential, mobilityOf, removeZone, withBuffer, withPort, withZeta, zetaOf } from './conditions-model';
 
 function design(): DesignDocument {
   const r = parseDesign({
@@ -52,5 +52,13 @@ describe('conditions model', () => {
     const e = addZone(d, region);
     expect(e.wallZones).toEqual([{ region, zeta: -0.05 }]);
     expect(removeZone(e, 0).wallZones).toEqual([]);
+  });
+
+  it('takes the zeta of a wall material, the middle of its range, or its mobility', () => {
+    const z = (m: number) => -m * 1e6;
+    expect(wallZeta({ zeta: -0.074, mobility: 5.8e-8 }, z)).toBe(-0.074);
+    expect(wallZeta({ zetaMin: -0.11, zetaMax: -0.068 }, z)).toBeCloseTo(-0.089, 12);
+    expect(wallZeta({ mobilityMin: 2e-8, mobilityMax: 8e-8 }, z)).toBeCloseTo(-0.05, 12);
+    expect(wallZeta({}, z)).toBeNull();
   });
 });

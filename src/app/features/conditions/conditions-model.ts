@@ -58,6 +58,22 @@ export function zetaOf(doc: DesignDocument, mobility: number): number {
   return zetaFromMobility(doc.buffer.relativePermittivity, doc.buffer.viscosity, mobility);
 }
 
+/**
+ * The zeta a library wall material gives: its typical zeta, else the middle of its zeta range, else its typical
+ * mobility or the middle of its mobility range turned into zeta with `zetaOfMobility`; null when it has none.
+ */
+export function wallZeta(
+  v: { zeta?: number; zetaMin?: number; zetaMax?: number; mobility?: number; mobilityMin?: number; mobilityMax?: number },
+  zetaOfMobility: (mobility: number) => number,
+): number | null {
+  const mid = (a?: number, b?: number) => (typeof a === 'number' && typeof b === 'number' ? (a + b) / 2 : undefined);
+  const zeta = v.zeta ?? mid(v.zetaMin, v.zetaMax);
+  if (zeta !== undefined && Number.isFinite(zeta)) return zeta;
+  const mobility = v.mobility ?? mid(v.mobilityMin, v.mobilityMax);
+  if (mobility !== undefined && Number.isFinite(mobility)) return zetaOfMobility(mobility);
+  return null;
+}
+
 /** The largest port potential in size (V), 0 when no port has an electrode. */
 export function largestPotential(doc: DesignDocument): number {
   return doc.ports.reduce((m, p) => (p.potential === null ? m : Math.max(m, Math.abs(p.potential))), 0);

@@ -29,6 +29,7 @@ import {
   highVoltagePorts,
   mobilityOf,
   removeZone,
+  wallZeta,
   withBuffer,
   withPort,
   withZeta,
@@ -457,19 +458,24 @@ export class ConditionsPanel {
 
   protected pickWall(wall: Wall, choice: LibraryChoice<WallValues>): void {
     const doc = this.doc();
-    const v = choice.values;
-    const zeta = typeof v.zeta === 'number' ? v.zeta : typeof v.mobility === 'number' ? zetaOf(doc, v.mobility) : null;
+    const zeta = wallZeta(choice.values, (mobility) => zetaOf(doc, mobility));
     if (zeta === null || Math.abs(zeta) > 1) {
       this.libraryError.set(`"${choice.name}" has no usable zeta or mobility.`);
       return;
     }
+    this.libraryError.set('');
     this.commit(withZeta(doc, wall, zeta));
   }
 
   protected describeWall(choice: LibraryChoice<WallValues>): string {
     const v = choice.values;
+    const range = (a: number | undefined, b: number | undefined, dim: 'potential' | 'mobility') =>
+      typeof a === 'number' && typeof b === 'number' ? `${formatQuantity(a, dim, { digits: 3 })} to ${formatQuantity(b, dim, { digits: 3 })}` : null;
     if (typeof v.zeta === 'number') return `ζ ${formatQuantity(v.zeta, 'potential', { digits: 3 })}`;
-    if (typeof v.mobility === 'number') return `μ_eo ${formatQuantity(v.mobility, 'mobility', { digits: 3 })}`;
-    return '';
+    const zetas = range(v.zetaMax, v.zetaMin, 'potential');
+    if (zetas) return `ζ ${zetas}, middle taken`;
+    if (typeof v.mobility === 'number') return `μeo ${formatQuantity(v.mobility, 'mobility', { digits: 3 })}`;
+    const mobilities = range(v.mobilityMin, v.mobilityMax, 'mobility');
+    return mobilities ? `μeo ${mobilities}, middle taken` : '';
   }
 }
