@@ -73,14 +73,22 @@ export class WorkspaceService {
     return { items, total: Number(count?.n ?? 0) };
   }
 
-  /** Locks the workspace's memberships so that two owners demoting each other cannot leave it without one. */
-  private async lockMembers(em: EntityManager, workspaceId: number, userId: number) {
+  /**
+   * Locks the workspace's memberships so that two owners demoting each other cannot leave it without one, and
+   * checks again under the lock that the actor is still an owner (the role check before it ran without a lock).
+   */
+  private async lockMembers(em: EntityManager, access: Access, userId: number) {
     const rows = await queryRows<{ user_id: number; role: Role; name: string }>(
       em,
       `select m.user_id, m.role, u.name from memberships m join users u on u.id = m.user_id
        where m.workspace_id = ? order by m.id for update of m`,
-      [workspaceId],
+      [access.workspaceId],
     );
+    const actor = rows.find((r) => r.user_id === access.userId);
+    if (!actor) throw new ApiError('not-found', 'No such workspace');
+    if (userId !== access.userId && actor.role !== 'owner') {
+      throw new ApiError('forbidden', `This needs the owner role in the workspace; yours is now ${actor.role}`);
+    }
     const target = rows.find((r) => r.user_id === userId);
     if (!target) throw new ApiError('not-found', 'No such member in this workspace');
     const owners = rows.filter((r) => r.role === 'owner').length;
@@ -89,7 +97,7 @@ export class WorkspaceService {
 
   async changeRole(access: Access, userId: number, role: Role): Promise<Member> {
     return this.orm.em.fork().transactional(async (em) => {
-      const { target, lastOwner } = await this.lockMembers(em, access.workspaceId, userId);
+      const { target, lastOwner } = await this.lockMembers(em, access, userId);
       if (lastOwner && role !== 'owner') {
         throw new ApiError('conflict', 'This is the last owner of the workspace; make someone else owner first');
       }
@@ -108,7 +116,7 @@ export class WorkspaceService {
 
   async removeMember(access: Access, userId: number): Promise<void> {
     await this.orm.em.fork().transactional(async (em) => {
-      const { target, lastOwner } = await this.lockMembers(em, access.workspaceId, userId);
+      const { target, lastOwner } = await this.lockMembers(em, access, userId);
       if (lastOwner) throw new ApiError('conflict', 'This is the last owner of the workspace; make someone else owner first');
       await run(em, 'delete from memberships where workspace_id = ? and user_id = ?', [access.workspaceId, userId]);
       const message = userId === access.userId ? 'left the workspace' : `removed ${target.name} from the workspace`;
