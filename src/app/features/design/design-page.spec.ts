@@ -1,8 +1,7 @@
-// The tab contents are the teammates' components; here they are stand-ins with the same inputs and outputs
-// (`virtual` while a file is not written yet).
-jest.mock('../sketch/sketch-editor', () => jest.requireActual('./testing/tab-stubs'), { virtual: mockMissing('../sketch/sketch-editor') });
-jest.mock('../conditions/conditions-panel', () => jest.requireActual('./testing/tab-stubs'), { virtual: mockMissing('../conditions/conditions-panel') });
-jest.mock('../fields/fields-view', () => jest.requireActual('./testing/tab-stubs'), { virtual: mockMissing('../fields/fields-view') });
+// The tab contents are the teammates' components; here they are stand-ins with the same inputs and outputs.
+jest.mock('../sketch/sketch-editor', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../conditions/conditions-panel', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../fields/fields-view', () => jest.requireActual('./testing/tab-stubs'));
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
@@ -12,11 +11,6 @@ import { provideRouter } from '@angular/router';
 import { of } from 'rxjs';
 import { DESIGN_TEMPLATES } from '../designs/templates';
 import { AUTOSAVE_DELAY_MS, DesignPage } from './design-page';
-
-function mockMissing(path: string): boolean {
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
-  return !(require('node:fs') as typeof import('node:fs')).existsSync(`${__dirname}/${path}.ts`);
-}
 
 const cross = DESIGN_TEMPLATES.find((t) => t.id === 'cross')!.document;
 const design = (over: Record<string, unknown> = {}) => ({
