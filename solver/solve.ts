@@ -15,6 +15,7 @@ import { electricField } from './potential/gradient';
 import { electrodePower, maxPowerPerLength } from './potential/joule';
 import { PotentialCancelled, solvePotential } from './potential/potential-solve';
 import { asSolveError, geometryRefusal, invalidDesign, SolveError } from './result/errors';
+import { rangeErrors } from './result/limits';
 import { interimFlow, type FlowInput, type FlowOutput } from './result/interim-flow';
 import { sampleProbes } from './result/probes';
 import type { SolveFields, SolveResult } from './result/types';
@@ -62,6 +63,8 @@ export function solveDesign(design: unknown, options: SolveOptions = {}): SolveR
 function validated(design: unknown): DesignDocument {
   const parsed = parseDesign(design);
   if (!parsed.ok) throw invalidDesign(parsed.errors);
+  const outOfRange = rangeErrors(parsed.design);
+  if (outOfRange.length > 0) throw invalidDesign(outOfRange);
   return parsed.design;
 }
 
