@@ -1,7 +1,9 @@
 /**
  * Osmolane on the command line (design-format.md):
  *
- *   npm run -s osmolane -- solve DESIGN.json [--cells N] [--probe X,Y]... [--json] [--vtk OUT.vtk]
+ *   npm run -s osmolane -- solve DESIGN.json [--cells N] [--probe X,Y]... [--json] [--vtk OUT.vtk] [--csv OUT.csv]
+ *   npm run -s osmolane -- export DESIGN.json --format svg|dxf --out FILE
+ *   npm run -s osmolane -- import FILE.svg|FILE.dxf [--scale METRES_PER_UNIT] --out DESIGN.json
  *
  * Exit 0 on success; 2 with one `error:` line on stderr for an invalid design or argument;
  * 1 with one `error:` line for an internal failure. Never a stack trace.
@@ -14,6 +16,8 @@ import { parseDesign } from '../shared/design';
 import { asSolveError, invalidDesign } from './result/errors';
 import { resultJson } from './result/types';
 import { fieldsToVtk } from './result/vtk';
+import { designToDxf, designToSvg, ImportError, importOutline } from './io';
+import { resultsCsv } from './io/fields-csv';
 import { solveDesign } from './solve';
 
 class Exit extends Error {
@@ -38,12 +42,23 @@ function main(argv: string[]): void {
     process.stdout.write(`${USAGE}\n`);
     return;
   }
-  let text: string;
-  try {
-    text = readFileSync(command.file, 'utf8');
-  } catch (error) {
-    const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-    throw new Exit(2, `cannot read ${command.file}: ${reason}`);
+  const text = read(command.file);
+  if (command.command === 'import') {
+    let imported;
+    try {
+      imported = importOutline(command.file, text, { scale: command.scale });
+    } catch (error) {
+      if (error instanceof ImportError) throw new Exit(2, `${command.file}: ${error.message}`);
+      throw error;
+    }
+    write(command.out, `${JSON.stringify(imported.design, null, 2)}\n`);
+    const { found, skipped } = imported.report;
+    process.stdout.write(
+      `${command.file}: ${found.add} add and ${found.subtract} subtract shapes (${found.circles} circles, ${found.sectors} sectors, ${found.polygons} polygons), ${found.ports} ports, ${found.wallZones} wall zones; ${imported.report.unitsSource}\n` +
+        skipped.map((s) => `skipped ${s.entity}${s.at ? ` at (${s.at.map((v) => v.toPrecision(4)).join(', ')}) m` : ''}: ${s.reason}\n`).join('') +
+        `wrote ${command.out}\n`,
+    );
+    return;
   }
   let json: unknown;
   try {
@@ -53,6 +68,11 @@ function main(argv: string[]): void {
   }
   const parsed = parseDesign(json);
   if (!parsed.ok) throw new Exit(2, `${command.file}: ${invalidDesign(parsed.errors).message}`);
+  if (command.command === 'export') {
+    write(command.out, command.format === 'svg' ? designToSvg(parsed.design) : designToDxf(parsed.design));
+    process.stdout.write(`wrote ${command.out} (${command.format === 'svg' ? 'SVG, 1 unit = 1 um' : 'DXF, $INSUNITS micrometres'})\n`);
+    return;
+  }
 
   let result;
   try {
@@ -68,7 +88,25 @@ function main(argv: string[]): void {
       throw new Exit(2, `cannot write ${command.vtk}: ${(error as Error).message}`);
     }
   }
+  if (command.csv !== undefined) write(command.csv, resultsCsv({ name: parsed.design.name, ports: result.ports, probes: result.probes }));
   process.stdout.write(command.json ? `${JSON.stringify(resultJson(result), null, 2)}\n` : formatSummary(parsed.design, result));
+}
+
+function read(file: string): string {
+  try {
+    return readFileSync(file, 'utf8');
+  } catch (error) {
+    const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
+    throw new Exit(2, `cannot read ${file}: ${reason}`);
+  }
+}
+
+function write(file: string, text: string): void {
+  try {
+    writeFileSync(file, text);
+  } catch (error) {
+    throw new Exit(2, `cannot write ${file}: ${(error as Error).message}`);
+  }
 }
 
 try {

@@ -28,3 +28,21 @@ describe('command-line arguments (design-format.md)', () => {
     fails(['solve', 'd.json', '--vtk='], /--vtk needs a file name/);
   });
 });
+
+describe('export and import arguments', () => {
+  it('reads export and import', () => {
+    expect(parseArgs(['export', 'd.json', '--format', 'DXF', '--out', 'm.dxf'])).toEqual({ command: 'export', file: 'd.json', format: 'dxf', out: 'm.dxf' });
+    expect(parseArgs(['import', 'a.svg', '--scale=1e-6', '--out', 'd.json'])).toEqual({ command: 'import', file: 'a.svg', scale: 1e-6, out: 'd.json' });
+    expect(parseArgs(['solve', 'd.json', '--csv', 'r.csv'])).toMatchObject({ csv: 'r.csv' });
+  });
+
+  it.each([
+    [['export', 'd.json', '--out', 'x'], /--format/],
+    [['export', 'd.json', '--format', 'png', '--out', 'x'], /svg or dxf/],
+    [['import', 'a.svg'], /--out/],
+    [['import', 'a.svg', '--scale', '-1', '--out', 'x'], /positive/],
+    [['import', '--out', 'x'], /no drawing file/],
+  ])('refuses %j', (argv, message) => {
+    expect(() => parseArgs(argv)).toThrow(message);
+  });
+});

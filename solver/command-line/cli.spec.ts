@@ -2,7 +2,7 @@
  * The command line end to end (design-format.md): two spawns only, as tsx takes a while to start.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 
@@ -39,5 +39,27 @@ describe('osmolane solve', () => {
     expect(out.status).toBe(2);
     expect(out.stdout).toBe('');
     expect(out.stderr).toBe('error: cannot read tests/fixtures/designs/no-such-design.json: no such file\n');
+  });
+});
+
+describe('osmolane export and import', () => {
+  it('exports the outline, imports it back, and refuses a hostile file with exit 2 and one error: line', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'osmolane-'));
+    const svg = join(dir, 'bend.svg');
+    const back = join(dir, 'bend.json');
+    const out = run(['export', 'tests/fixtures/designs/bend-90.json', '--format', 'svg', '--out', svg]);
+    expect(out.stderr).toBe('');
+    expect(out.status).toBe(0);
+    expect(readFileSync(svg, 'utf8')).toMatch(/^<\?xml[^]*<svg [^>]*width="[\d.]+mm"/);
+    const imp = run(['import', svg, '--out', back]);
+    expect(imp.stderr).toBe('');
+    expect(imp.status).toBe(0);
+    expect(imp.stdout).toMatch(/1 add and 0 subtract shapes.*2 ports/);
+    expect(JSON.parse(readFileSync(back, 'utf8')).format).toBe('osmolane.design/1');
+    writeFileSync(join(dir, 'evil.svg'), '<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"><rect width="1" height="1"/></svg>');
+    const bad = run(['import', join(dir, 'evil.svg'), '--scale', '1e-6', '--out', join(dir, 'evil.json')]);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/^error: .*evil\.svg: the SVG has an event handler \(onload\)[^\n]*\n$/);
+    expect(existsSync(join(dir, 'evil.json'))).toBe(false);
   });
 });
