@@ -34,6 +34,20 @@ export interface ServerConfig {
   allowSignUp: boolean;
   seedDemo: boolean;
   demoPassword: string;
+  /** Object storage for run field blobs and uploaded drawings (server/storage). */
+  storage: {
+    mode: 's3' | 'postgres';
+    /** An S3 endpoint; when unset the server starts its own stand-in on loopback. */
+    endpoint: string | null;
+    bucket: string;
+    region: string;
+    accessKeyId: string;
+    secretAccessKey: string;
+    /** The local stand-in's objects. */
+    dataDir: string;
+  };
+  /** Largest uploaded drawing (bytes). */
+  uploadLimit: number;
 }
 
 const root = join(__dirname, '..');
@@ -81,5 +95,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     allowSignUp: env['ALLOW_SIGN_UP'] !== '0',
     seedDemo: env['SEED_DEMO'] === '1',
     demoPassword: env['DEMO_PASSWORD'] || 'osmolane-demo',
+    storage: {
+      mode: env['STORAGE'] === 'postgres' ? 'postgres' : 's3',
+      endpoint: env['S3_ENDPOINT'] || null,
+      bucket: env['S3_BUCKET'] || 'osmolane',
+      region: env['S3_REGION'] || 'us-east-1',
+      accessKeyId: env['S3_ACCESS_KEY_ID'] || 'local',
+      secretAccessKey: env['S3_SECRET_ACCESS_KEY'] || 'local',
+      dataDir: env['S3_DATA_DIR'] || join(root, '.data', 's3'),
+    },
+    uploadLimit: numberFrom(env['UPLOAD_LIMIT'], 5 * 1024 * 1024),
   };
 }

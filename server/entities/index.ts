@@ -1,4 +1,5 @@
 import { CommentSchema, DesignSchema, RevisionSchema, RunBlobSchema, RunSchema } from './design';
+import { DesignFileSchema } from './design-file';
 import { ActivityEventSchema, LibraryItemSchema } from './library';
 import { PasswordResetSchema, SessionSchema } from './session';
 import { UserSchema } from './user';
@@ -19,4 +20,5 @@ export const entities = [
   CommentSchema,
   LibraryItemSchema,
   ActivityEventSchema,
+  DesignFileSchema,
 ];

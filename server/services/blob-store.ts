@@ -2,7 +2,7 @@ import type { MikroORM } from '@mikro-orm/postgresql';
 
 /** Where run field blobs live. PostgreSQL for now; object storage can take its place behind the same three calls. */
 export interface BlobStore {
-  put(key: string, bytes: Uint8Array): Promise<void>;
+  put(key: string, bytes: Uint8Array, contentType?: string): Promise<void>;
   /** The bytes exactly as stored, or null when there is no such key. */
   get(key: string): Promise<Buffer | null>;
   delete(key: string): Promise<void>;
