@@ -1,4 +1,4 @@
-import { STANDARD_GRAVITY, formatQuantity, headToPressure, parsePressureOrHead, parseQuantity, pressureToHead, type Dimension } from './units';
+import { STANDARD_GRAVITY, displayUnit, formatQuantity, headToPressure, parsePressureOrHead, parseQuantity, pressureToHead, type Dimension } from './units';
 
 function value(text: string, dimension: Dimension, defaultUnit?: string): number {
   const r = parseQuantity(text, dimension, { defaultUnit });
@@ -97,6 +97,31 @@ describe('formatQuantity', () => {
       const back = parseQuantity(formatQuantity(v, dim), dim);
       expect(back.ok && back.value / v).toBeCloseTo(1, 9);
     }
+  });
+});
+
+describe('result quantities', () => {
+  it('format with a fitting prefix and parse back', () => {
+    expect(formatQuantity(2.5e5, 'fieldStrength')).toBe('250 kV/m');
+    expect(formatQuantity(1.2e-3, 'velocity')).toBe('1.2 mm/s');
+    expect(formatQuantity(-2.8e-5, 'current')).toBe('-28 µA');
+    expect(formatQuantity(1e-12, 'flowRate')).toBe('60 nL/min');
+    expect(formatQuantity(-3200, 'vorticity')).toBe('-3200 1/s');
+    expect(formatQuantity(0.0123, 'power')).toBe('12.3 mW');
+    const cases: Array<[number, Dimension]> = [
+      [2.5e5, 'fieldStrength'], [1.2e-3, 'velocity'], [-2.8e-5, 'current'], [1e-12, 'flowRate'], [-3200, 'vorticity'],
+      [5e-8, 'streamfunction'], [0.0123, 'power'],
+    ];
+    for (const [v, dim] of cases) {
+      const back = parseQuantity(formatQuantity(v, dim), dim);
+      expect(back.ok && back.value / v).toBeCloseTo(1, 9);
+    }
+  });
+
+  it('share one display unit across a range (colour bars, plot axes)', () => {
+    expect(displayUnit(2.5e5, 'fieldStrength')).toEqual({ label: 'kV/m', factor: 1e3 });
+    expect(displayUnit(400, 'potential')).toEqual({ label: 'V', factor: 1 });
+    expect(displayUnit(0, 'current').label).toBe('µA');
   });
 });
 

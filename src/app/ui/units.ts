@@ -22,7 +22,15 @@ export type Dimension =
   | 'temperature'
   | 'mobility'
   | 'angle'
-  | 'dimensionless';
+  | 'dimensionless'
+  // Results of a solve (shown, not typed in).
+  | 'fieldStrength'
+  | 'velocity'
+  | 'current'
+  | 'flowRate'
+  | 'vorticity'
+  | 'streamfunction'
+  | 'power';
 
 interface DimensionInfo {
   /** What the user is asked for, in words ("a length"). */
@@ -151,6 +159,93 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
     display: [{ label: '', factor: 1 }],
     zero: '',
     digits: 5,
+  },
+  fieldStrength: {
+    noun: 'a field strength',
+    si: 'V/m',
+    example: '25 kV/m',
+    display: [
+      { label: 'V/m', factor: 1 },
+      { label: 'kV/m', factor: 1e3 },
+      { label: 'MV/m', factor: 1e6 },
+    ],
+    zero: 'V/m',
+    digits: 4,
+  },
+  velocity: {
+    noun: 'a speed',
+    si: 'm/s',
+    example: '1.2 mm/s',
+    display: [
+      { label: 'nm/s', factor: 1e-9 },
+      { label: 'µm/s', factor: 1e-6 },
+      { label: 'mm/s', factor: 1e-3 },
+      { label: 'm/s', factor: 1 },
+    ],
+    zero: 'mm/s',
+    digits: 4,
+  },
+  current: {
+    noun: 'a current',
+    si: 'A',
+    example: '12 uA',
+    display: [
+      { label: 'pA', factor: 1e-12 },
+      { label: 'nA', factor: 1e-9 },
+      { label: 'µA', factor: 1e-6 },
+      { label: 'mA', factor: 1e-3 },
+      { label: 'A', factor: 1 },
+    ],
+    zero: 'µA',
+    digits: 4,
+  },
+  flowRate: {
+    noun: 'a flow rate',
+    si: 'm^3/s',
+    example: '40 nL/min',
+    // Syringe pumps and datasheets quote per minute.
+    display: [
+      { label: 'pL/min', factor: 1e-15 / 60 },
+      { label: 'nL/min', factor: 1e-12 / 60 },
+      { label: 'µL/min', factor: 1e-9 / 60 },
+      { label: 'mL/min', factor: 1e-6 / 60 },
+    ],
+    zero: 'nL/min',
+    digits: 4,
+  },
+  vorticity: {
+    noun: 'a vorticity',
+    si: '1/s',
+    example: '120 1/s',
+    // Per second only: "3200 1/s" reads more plainly than "3.2 1/ms".
+    display: [{ label: '1/s', factor: 1 }],
+    zero: '1/s',
+    digits: 4,
+  },
+  streamfunction: {
+    noun: 'a streamfunction',
+    si: 'm^2/s',
+    example: '0.05 mm2/s',
+    display: [
+      { label: 'µm²/s', factor: 1e-12 },
+      { label: 'mm²/s', factor: 1e-6 },
+      { label: 'm²/s', factor: 1 },
+    ],
+    zero: 'mm²/s',
+    digits: 4,
+  },
+  power: {
+    noun: 'a power',
+    si: 'W',
+    example: '15 mW',
+    display: [
+      { label: 'nW', factor: 1e-9 },
+      { label: 'µW', factor: 1e-6 },
+      { label: 'mW', factor: 1e-3 },
+      { label: 'W', factor: 1 },
+    ],
+    zero: 'mW',
+    digits: 4,
   },
 };
 
@@ -310,6 +405,19 @@ export function formatQuantity(value: number, dimension: Dimension, options: For
     if (Number((abs / u.factor).toPrecision(digits)) >= 1) chosen = u;
   }
   return join(trimNumber(value / chosen.factor, digits), chosen.label);
+}
+
+/**
+ * One display unit for a set of values of a dimension (a colour bar's ticks, a plot's axis): the unit
+ * {@link formatQuantity} would pick for the largest magnitude among them. Values are shown as value / factor.
+ */
+export function displayUnit(maxAbs: number, dimension: Dimension): { label: string; factor: number } {
+  const info = DIMENSIONS[dimension];
+  if (dimension === 'temperature' || dimension === 'mobility') return { label: info.zero, factor: 1 };
+  if (!(Number.isFinite(maxAbs) && maxAbs > 0)) return info.display.find((u) => u.label === info.zero) ?? info.display[0];
+  let chosen = info.display[0];
+  for (const u of info.display) if (Number((maxAbs / u.factor).toPrecision(info.digits)) >= 1) chosen = u;
+  return chosen;
 }
 
 /** Pressure under a column of liquid: p = rho g h (gauge pressure at the bottom of the column). */
