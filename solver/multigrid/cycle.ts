@@ -1,4 +1,5 @@
 import { coarsen, prolongAdd, restrict } from './coarsen';
+import { coarsenWithExtents, unitExtents } from './coarsen-extents';
 import { bandedCost, coarsestSolver, type CoarsestSolver } from './banded';
 import { residual, type Operator5 } from './operator';
 import { smoothRedBlack } from './smooth';
@@ -31,13 +32,23 @@ function activeCount(op: Operator5): number {
   return n;
 }
 
+/**
+ * How coarse operators are made: 'half' is `coarsen` (half-sum rule), 'extents' is `coarsenWithExtents`, which
+ * stays convergent where Dirichlet boundaries (no-slip walls, ports) fall on odd grid lines or lie other than
+ * half a cell from their volume's centre (then give that distance per volume, in cells, as boundaryDistance).
+ */
+export type Coarsening = 'half' | 'extents';
+
 /** Builds levels by coarsening until the coarsest level is small or cheap enough for an exact solve. */
-export function buildHierarchy(fine: Operator5, sweeps = 2): Hierarchy {
+export function buildHierarchy(fine: Operator5, sweeps = 2, coarsening: Coarsening = 'half', boundaryDistance?: Float64Array): Hierarchy {
   const levels = [fine];
   let n = activeCount(fine);
+  let extents = coarsening === 'extents' ? unitExtents(fine, boundaryDistance) : null;
   while (n > COARSEST_CELLS && bandedCost(levels[levels.length - 1], n) > COARSEST_FACTOR_COST) {
     const last = levels[levels.length - 1];
-    const next = coarsen(last);
+    let next: Operator5;
+    if (extents) ({ op: next, extents } = coarsenWithExtents(last, extents));
+    else next = coarsen(last);
     const m = activeCount(next);
     if (m >= n) break; // no more reduction possible
     levels.push(next);

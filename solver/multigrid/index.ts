@@ -1,6 +1,7 @@
 export { apply, createOperator, finishOperator, residual, type Operator5 } from './operator';
 export { coarsen, prolongAdd, restrict } from './coarsen';
-export { buildHierarchy, vcycle, type Hierarchy } from './cycle';
+export { buildHierarchy, vcycle, type Coarsening, type Hierarchy } from './cycle';
+export { coarsenWithExtents, unitExtents, type Extents } from './coarsen-extents';
 export { pcg, dot, type KrylovResult, type PcgOptions } from './pcg';
 export { smoothRedBlack } from './smooth';
 
