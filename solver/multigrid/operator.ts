@@ -24,6 +24,11 @@ export interface Operator5 {
   active: Uint8Array;
   /** Σ g + reaction + boundary per volume; filled by `finishOperator`. */
   diag: Float64Array;
+  /**
+   * Runs of active volumes, row by row: pairs [first, end) of volume indices. Filled by `finishOperator`
+   * (or on first use); the kernels loop over these only, so solid regions of the box cost nothing.
+   */
+  runs?: Int32Array;
 }
 
 export function createOperator(n1: number, n2: number): Operator5 {
@@ -46,58 +51,78 @@ export function createOperator(n1: number, n2: number): Operator5 {
  */
 export function finishOperator(op: Operator5): Operator5 {
   const { n1, n2, gx, gy, reaction, boundary, active, diag } = op;
-  const sx = n1 + 1;
-  for (let j = 0; j < n2; j++) {
-    gx[j * sx] = 0;
-    gx[n1 + j * sx] = 0;
-  }
-  for (let i = 0; i < n1; i++) {
-    gy[i] = 0;
-    gy[i + n2 * n1] = 0;
-  }
+  // One pass: a face keeps its conductance only between two active volumes inside the box.
   for (let j = 0; j < n2; j++) {
     for (let i = 0; i < n1; i++) {
       const c = i + j * n1;
+      const f = c + j; // face left of c in gx
       if (!active[c]) {
-        gx[i + j * sx] = 0;
-        gx[i + 1 + j * sx] = 0;
+        gx[f] = 0;
+        gx[f + 1] = 0;
         gy[c] = 0;
         gy[c + n1] = 0;
+        diag[c] = 0;
+        continue;
       }
-    }
-  }
-  for (let j = 0; j < n2; j++) {
-    for (let i = 0; i < n1; i++) {
-      const c = i + j * n1;
-      const d = gx[i + j * sx] + gx[i + 1 + j * sx] + gy[c] + gy[c + n1] + reaction[c] + boundary[c];
-      diag[c] = active[c] ? d : 0;
-      if (active[c] && d <= 0) {
+      const w = i > 0 && active[c - 1] ? gx[f] : 0;
+      const e = i < n1 - 1 && active[c + 1] ? gx[f + 1] : 0;
+      const so = j > 0 && active[c - n1] ? gy[c] : 0;
+      const no = j < n2 - 1 && active[c + n1] ? gy[c + n1] : 0;
+      gx[f] = w;
+      gx[f + 1] = e;
+      gy[c] = so;
+      gy[c + n1] = no;
+      const d = w + e + so + no + reaction[c] + boundary[c];
+      if (d > 0) {
+        diag[c] = d;
+      } else {
         active[c] = 0;
         diag[c] = 0;
       }
     }
   }
+  op.runs = findRuns(op);
   return op;
 }
 
-/** out = A x (inactive volumes give 0). */
-export function apply(op: Operator5, x: Float64Array, out: Float64Array): void {
-  const { n1, n2, gx, gy, diag, active } = op;
-  const sx = n1 + 1;
+function findRuns(op: Operator5): Int32Array {
+  const { n1, n2, active } = op;
+  let count = 0;
+  for (let j = 0; j < n2; j++) {
+    for (let i = 0; i < n1; i++) if (active[i + j * n1] && (i === 0 || !active[i - 1 + j * n1])) count++;
+  }
+  const runs = new Int32Array(2 * count);
+  let k = 0;
   for (let j = 0; j < n2; j++) {
     const row = j * n1;
-    const rowx = j * sx;
-    for (let i = 0; i < n1; i++) {
-      const c = row + i;
-      if (!active[c]) {
-        out[c] = 0;
-        continue;
-      }
+    let i = 0;
+    while (i < n1) {
+      while (i < n1 && !active[row + i]) i++;
+      if (i === n1) break;
+      runs[k++] = row + i;
+      while (i < n1 && active[row + i]) i++;
+      runs[k++] = row + i;
+    }
+  }
+  return runs;
+}
+
+/** The runs of active volumes (see Operator5.runs), found once. */
+export function activeRuns(op: Operator5): Int32Array {
+  return op.runs ?? (op.runs = findRuns(op));
+}
+
+/** (A x)_c on the active volumes only; inactive entries of `out` are left as they are. */
+export function applyActive(op: Operator5, x: Float64Array, out: Float64Array): void {
+  const { n1, gx, gy, diag } = op;
+  const runs = activeRuns(op);
+  for (let r = 0; r < runs.length; r += 2) {
+    const end = runs[r + 1];
+    const j = (runs[r] / n1) | 0; // gx index of the face left of volume c is c + j
+    for (let c = runs[r]; c < end; c++) {
+      const f = c + j;
       let s = diag[c] * x[c];
-      const w = gx[rowx + i];
-      const e = gx[rowx + i + 1];
-      const so = gy[c];
-      const no = gy[c + n1];
+      const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
       if (w !== 0) s -= w * x[c - 1];
       if (e !== 0) s -= e * x[c + 1];
       if (so !== 0) s -= so * x[c - n1];
@@ -107,9 +132,40 @@ export function apply(op: Operator5, x: Float64Array, out: Float64Array): void {
   }
 }
 
-/** r = b − A x. */
+/** Sets the entries of v outside the active runs to 0. */
+export function zeroInactive(op: Operator5, v: Float64Array): void {
+  const runs = activeRuns(op);
+  let from = 0;
+  for (let r = 0; r < runs.length; r += 2) {
+    if (runs[r] > from) v.fill(0, from, runs[r]);
+    from = runs[r + 1];
+  }
+  if (from < v.length) v.fill(0, from, v.length);
+}
+
+/** out = A x (inactive volumes give 0). */
+export function apply(op: Operator5, x: Float64Array, out: Float64Array): void {
+  applyActive(op, x, out);
+  zeroInactive(op, out);
+}
+
+/** r = b − A x (0 on inactive volumes). */
 export function residual(op: Operator5, x: Float64Array, b: Float64Array, r: Float64Array): void {
-  apply(op, x, r);
-  const { active } = op;
-  for (let c = 0; c < r.length; c++) r[c] = active[c] ? b[c] - r[c] : 0;
+  const { n1, gx, gy, diag } = op;
+  const runs = activeRuns(op);
+  for (let k = 0; k < runs.length; k += 2) {
+    const end = runs[k + 1];
+    const j = (runs[k] / n1) | 0;
+    for (let c = runs[k]; c < end; c++) {
+      const f = c + j;
+      let s = b[c] - diag[c] * x[c];
+      const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
+      if (w !== 0) s += w * x[c - 1];
+      if (e !== 0) s += e * x[c + 1];
+      if (so !== 0) s += so * x[c - n1];
+      if (no !== 0) s += no * x[c + n1];
+      r[c] = s;
+    }
+  }
+  zeroInactive(op, r);
 }

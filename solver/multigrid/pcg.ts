@@ -1,4 +1,4 @@
-import { apply, type Operator5 } from './operator';
+import { activeRuns, applyActive, type Operator5 } from './operator';
 
 export interface KrylovResult {
   iterations: number;
@@ -26,17 +26,19 @@ export function pcg(op: Operator5, b: Float64Array, x: Float64Array, options: Pc
   const tol = options.tolerance ?? 1e-8;
   const maxIt = options.maxIterations ?? 200;
   const n = b.length;
-  const { active } = op;
+  const runs = activeRuns(op);
+  // Work vectors are touched on the active runs only, so they stay 0 elsewhere.
   const r = new Float64Array(n);
   const z = new Float64Array(n);
   const p = new Float64Array(n);
   const q = new Float64Array(n);
-  apply(op, x, q);
+  applyActive(op, x, q);
   let bnorm = 0;
-  for (let c = 0; c < n; c++) {
-    if (!active[c]) continue;
-    r[c] = b[c] - q[c];
-    bnorm += b[c] * b[c];
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k]; c < runs[k + 1]; c++) {
+      r[c] = b[c] - q[c];
+      bnorm += b[c] * b[c];
+    }
   }
   bnorm = Math.sqrt(bnorm);
   const history: number[] = [];
@@ -44,32 +46,37 @@ export function pcg(op: Operator5, b: Float64Array, x: Float64Array, options: Pc
     x.fill(0);
     return { iterations: 0, relativeResidual: 0, converged: true, history };
   }
-  let rnorm = norm(r, active);
+  let rnorm = Math.sqrt(dotRuns(r, r, runs));
   history.push(rnorm / bnorm);
   if (rnorm / bnorm <= tol) return { iterations: 0, relativeResidual: rnorm / bnorm, converged: true, history };
   options.precondition(r, z);
-  p.set(z);
-  let rz = dot(r, z, active);
+  for (let k = 0; k < runs.length; k += 2) for (let c = runs[k]; c < runs[k + 1]; c++) p[c] = z[c];
+  let rz = dotRuns(r, z, runs);
   let it = 0;
   while (it < maxIt) {
     it++;
-    apply(op, p, q);
-    const alpha = rz / dot(p, q, active);
-    for (let c = 0; c < n; c++) {
-      if (!active[c]) continue;
-      x[c] += alpha * p[c];
-      r[c] -= alpha * q[c];
+    applyActive(op, p, q);
+    const alpha = rz / dotRuns(p, q, runs);
+    // x += α p, r −= α q and ‖r‖² in one pass.
+    let rr = 0;
+    for (let k = 0; k < runs.length; k += 2) {
+      for (let c = runs[k]; c < runs[k + 1]; c++) {
+        x[c] += alpha * p[c];
+        const rc = r[c] - alpha * q[c];
+        r[c] = rc;
+        rr += rc * rc;
+      }
     }
-    rnorm = norm(r, active);
+    rnorm = Math.sqrt(rr);
     const rel = rnorm / bnorm;
     history.push(rel);
     if (rel <= tol) break;
     if (options.onIteration?.(it, rel) === false) break;
     options.precondition(r, z);
-    const rzNew = dot(r, z, active);
+    const rzNew = dotRuns(r, z, runs);
     const beta = rzNew / rz;
     rz = rzNew;
-    for (let c = 0; c < n; c++) if (active[c]) p[c] = z[c] + beta * p[c];
+    for (let k = 0; k < runs.length; k += 2) for (let c = runs[k]; c < runs[k + 1]; c++) p[c] = z[c] + beta * p[c];
   }
   const rel = history[history.length - 1];
   return { iterations: it, relativeResidual: rel, converged: rel <= tol, history };
@@ -81,6 +88,8 @@ export function dot(a: Float64Array, b: Float64Array, active: Uint8Array): numbe
   return s;
 }
 
-function norm(a: Float64Array, active: Uint8Array): number {
-  return Math.sqrt(dot(a, a, active));
+function dotRuns(a: Float64Array, b: Float64Array, runs: Int32Array): number {
+  let s = 0;
+  for (let k = 0; k < runs.length; k += 2) for (let c = runs[k]; c < runs[k + 1]; c++) s += a[c] * b[c];
+  return s;
 }
