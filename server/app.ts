@@ -16,6 +16,7 @@ import { designRoutes } from './routes/designs';
 import { devRoutes } from './routes/dev';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
+import { sweepRoutes } from './routes/sweeps';
 import { workspaceRoutes } from './routes/workspaces';
 import { createServices, type Services } from './services';
 import type { BlobStore } from './services/blob-store';
@@ -35,6 +36,8 @@ export interface AppLocals {
   mailbox: Mailbox;
   /** Resolves when no API handler is running (for shutdown). */
   idle: () => Promise<void>;
+  /** Ends the sweep event streams and stops the job queue and solver threads (first thing at shutdown). */
+  stop: () => Promise<void>;
 }
 
 export function appLocals(app: Express): AppLocals {
@@ -78,11 +81,12 @@ export function createApp(ctx: AppContext): Express {
   workspaceRoutes(api, services);
   designRoutes(api, services);
   libraryRoutes(api, services);
+  sweepRoutes(api, services);
   // The mailbox holds live invitation and reset links: only outside production, and only for the local stand-in.
   if (config.devRoutes && !config.smtpUrl) devRoutes(api, mailbox);
   api.router.use(notFoundRoute);
   app.use('/api', api.router);
-  const locals: AppLocals = { services, routes: api.routes, mailbox, idle: () => api.idle() };
+  const locals: AppLocals = { services, routes: api.routes, mailbox, idle: () => api.idle(), stop: () => services.stop() };
   Object.assign(app.locals, locals);
 
   const index = join(config.webRoot, 'index.html');

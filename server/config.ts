@@ -48,6 +48,22 @@ export interface ServerConfig {
   };
   /** Largest uploaded drawing (bytes). */
   uploadLimit: number;
+  sweeps: SweepQueueConfig;
+}
+
+/** The sweep job queue (pg-boss in the project's database, schema `pgboss`); the server and the workers read the same. */
+export interface SweepQueueConfig {
+  /** A job still active this long after it started is taken to be lost (its worker died) and is retried. */
+  jobExpirySeconds: number;
+  /** Retries of a job that failed or expired, with exponential backoff from `retryDelaySeconds`. */
+  retryLimit: number;
+  retryDelaySeconds: number;
+  /** How often pg-boss looks for expired jobs (one process does it per interval). */
+  maintenanceSeconds: number;
+  /** How often an idle worker asks for a job. */
+  pollingSeconds: number;
+  /** Solver threads per worker process (worker_threads), each taking one point at a time. */
+  threads: number;
 }
 
 const root = join(__dirname, '..');
@@ -105,5 +121,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
       dataDir: env['S3_DATA_DIR'] || join(root, '.data', 's3'),
     },
     uploadLimit: numberFrom(env['UPLOAD_LIMIT'], 5 * 1024 * 1024),
+    sweeps: {
+      jobExpirySeconds: numberFrom(env['SWEEP_JOB_EXPIRY_SECONDS'], 600),
+      retryLimit: numberFrom(env['SWEEP_RETRY_LIMIT'], 3),
+      retryDelaySeconds: numberFrom(env['SWEEP_RETRY_DELAY_SECONDS'], 5),
+      maintenanceSeconds: numberFrom(env['SWEEP_MAINTENANCE_SECONDS'], 30),
+      pollingSeconds: numberFrom(env['SWEEP_POLLING_SECONDS'], 1),
+      threads: numberFrom(env['SWEEP_WORKER_THREADS'], 1),
+    },
   };
 }

@@ -3,6 +3,7 @@ import { appLocals, createApp } from './app';
 import { loadConfig } from './config';
 import { openDatabase } from './db/orm';
 import { startMail } from './mail';
+import { spawnWorker } from './jobs/spawn';
 import { seedDemo } from './seed/demo';
 
 /** Starts the server: database (migrated, seeded on request), mail, then HTTP; stops all cleanly on SIGINT/SIGTERM. */
@@ -18,6 +19,7 @@ async function main(): Promise<void> {
   const server: Server = app.listen(config.port, config.host, () => {
     console.log(`[server] Osmolane ${config.version} on http://${config.host}:${config.port}`);
   });
+  const worker = process.env['START_WORKER'] === '1' ? keepWorker() : null;
   server.on('error', (err) => {
     console.error(`[server] cannot listen on ${config.host}:${config.port}: ${err.message}`);
     process.exit(1);
@@ -28,10 +30,13 @@ async function main(): Promise<void> {
     if (stopping) return;
     stopping = true;
     console.log(`[server] ${signal}: finishing open requests, then stopping`);
+    worker?.stop();
+    const background = appLocals(app).stop();
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
       await appLocals(app).idle();
+      await background.catch((err: unknown) => console.error('[server] sweep queue did not stop cleanly:', err));
       await mail.close().catch((err: unknown) => console.error('[server] mail did not stop cleanly:', err));
       await orm.close(true);
       process.exit(0);
@@ -40,6 +45,29 @@ async function main(): Promise<void> {
   };
   process.on('SIGINT', () => stop('SIGINT'));
   process.on('SIGTERM', () => stop('SIGTERM'));
+}
+
+/** START_WORKER=1 (npm start, the e2e server): one sweep worker process beside the server, restarted if it dies. */
+function keepWorker(): { stop(): void } {
+  let stopped = false;
+  let child = start();
+  function start() {
+    const c = spawnWorker();
+    c.on('exit', (code, signal) => {
+      if (stopped) return;
+      console.error(`[server] the sweep worker stopped (${signal ?? `exit code ${code}`}); starting another in 2 s`);
+      setTimeout(() => {
+        if (!stopped) child = start();
+      }, 2000).unref();
+    });
+    return c;
+  }
+  return {
+    stop() {
+      stopped = true;
+      child.kill('SIGTERM');
+    },
+  };
 }
 
 main().catch((err: unknown) => {

@@ -2,6 +2,7 @@ import { CommentSchema, DesignSchema, RevisionSchema, RunBlobSchema, RunSchema }
 import { DesignFileSchema } from './design-file';
 import { ActivityEventSchema, LibraryItemSchema } from './library';
 import { PasswordResetSchema, SessionSchema } from './session';
+import { SweepPointSchema, SweepSchema } from './sweep';
 import { UserSchema } from './user';
 import { InvitationSchema, MembershipSchema, WorkspaceSchema } from './workspace';
 
@@ -21,4 +22,6 @@ export const entities = [
   LibraryItemSchema,
   ActivityEventSchema,
   DesignFileSchema,
+  SweepSchema,
+  SweepPointSchema,
 ];

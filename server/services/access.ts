@@ -24,6 +24,8 @@ const LOOKUPS = {
     left join memberships m on m.workspace_id = d.workspace_id and m.user_id = ? where r.id = ?`,
   run: `select d.workspace_id, m.role from runs x join revisions r on r.id = x.revision_id join designs d on d.id = r.design_id
     left join memberships m on m.workspace_id = d.workspace_id and m.user_id = ? where x.id = ?`,
+  sweep: `select d.workspace_id, m.role from sweeps s join revisions r on r.id = s.revision_id join designs d on d.id = r.design_id
+    left join memberships m on m.workspace_id = d.workspace_id and m.user_id = ? where s.id = ?`,
   library: `select l.workspace_id, m.role from library_items l
     left join memberships m on m.workspace_id = l.workspace_id and m.user_id = ? where l.id = ?`,
 } as const;
@@ -35,6 +37,7 @@ const NAMES: Record<Resource, string> = {
   design: 'design',
   revision: 'revision',
   run: 'run',
+  sweep: 'sweep',
   library: 'library entry',
 };
 
@@ -76,6 +79,10 @@ export class AccessService {
 
   run(userId: number, id: number, min: Role): Promise<Access> {
     return this.check('run', userId, id, min);
+  }
+
+  sweep(userId: number, id: number, min: Role): Promise<Access> {
+    return this.check('sweep', userId, id, min);
   }
 
   /** Library entries of a workspace; built-in ones (no workspace) answer 403 here, so use this for writes only. */

@@ -1,5 +1,7 @@
 import type { MikroORM } from '@mikro-orm/postgresql';
 import type { ServerConfig } from '../config';
+import { SweepQueue } from '../jobs/queue';
+import { SolverPool } from '../jobs/solver-pool';
 import type { Mailer } from '../mail/mailer';
 import { AccessService } from './access';
 import { ActivityService } from './activity';
@@ -10,6 +12,8 @@ import { InvitationService } from './invitations';
 import { LibraryService } from './library';
 import { RevisionService } from './revisions';
 import { RunService } from './runs';
+import { SweepEvents } from './sweep-events';
+import { SweepService } from './sweeps';
 import { WorkspaceService } from './workspaces';
 
 export interface Services {
@@ -22,6 +26,10 @@ export interface Services {
   revisions: RevisionService;
   runs: RunService;
   library: LibraryService;
+  sweeps: SweepService;
+  sweepEvents: SweepEvents;
+  /** Ends what runs beside the requests: sweep event streams, the job queue's connections, solver threads. */
+  stop(): Promise<void>;
 }
 
 export interface ServiceDeps {
@@ -30,12 +38,20 @@ export interface ServiceDeps {
   mailer: Mailer;
   /** Defaults to the PostgreSQL blob store. */
   blobs?: BlobStore;
+  /** Defaults to pg-boss on the server's database with config.sweeps (started on first use). */
+  queue?: SweepQueue;
 }
 
-export function createServices({ orm, config, mailer, blobs = new PgBlobStore(orm) }: ServiceDeps): Services {
+export function createServices(deps: ServiceDeps): Services {
+  const { orm, config, mailer, blobs = new PgBlobStore(orm) } = deps;
   const activity = new ActivityService(orm);
   const auth = new AuthService(orm, config, mailer);
   const workspaces = new WorkspaceService(orm, activity);
+  const runs = new RunService(orm, blobs, activity);
+  const queue = deps.queue ?? new SweepQueue(config.database, config.sweeps);
+  // One solver thread for sweeps answered by superposition, so the unit solves never hold up requests.
+  const pool = new SolverPool(1);
+  const sweepEvents = new SweepEvents(orm);
   return {
     access: new AccessService(orm),
     activity,
@@ -44,7 +60,13 @@ export function createServices({ orm, config, mailer, blobs = new PgBlobStore(or
     invitations: new InvitationService(orm, config, mailer, auth, workspaces, activity),
     designs: new DesignService(orm, config, mailer, activity),
     revisions: new RevisionService(orm, activity),
-    runs: new RunService(orm, blobs, activity),
+    runs,
     library: new LibraryService(orm, activity),
+    sweeps: new SweepService(orm, queue, pool, runs, activity),
+    sweepEvents,
+    async stop() {
+      sweepEvents.close();
+      await Promise.all([queue.stop(), pool.close()]);
+    },
   };
 }

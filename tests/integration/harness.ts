@@ -4,7 +4,7 @@ import type { AddressInfo } from 'node:net';
 import type { Express } from 'express';
 import type { MikroORM } from '@mikro-orm/postgresql';
 import type { MailDetail, MailSummary, Role, SignInResponse } from '../../shared/api';
-import { createApp } from '../../server/app';
+import { appLocals, createApp } from '../../server/app';
 import { loadConfig, type ServerConfig } from '../../server/config';
 import { openDatabase } from '../../server/db/orm';
 import { startMail, type MailSystem } from '../../server/mail';
@@ -44,6 +44,7 @@ export async function startTestServer(overrides: Partial<ServerConfig> = {}): Pr
     config,
     mail,
     async close() {
+      await appLocals(app).stop();
       server.closeAllConnections();
       await new Promise((r) => server.close(r));
       await mail.close();

@@ -46,11 +46,21 @@ let revisionId: number;
 let runId: number;
 let libraryId: number;
 let builtInId: number;
+let sweepId: number;
 
 const owner = () => team.owner.token;
 
 async function freshLibraryItem(): Promise<number> {
   const r = await call(t.base, 'POST', `/api/workspaces/${team.wid}/library`, { token: owner(), body: { kind: 'wall', name: 'Etched glass', values: { zeta: -0.06 } } });
+  return r.body.id;
+}
+
+/** A sweep over a port potential: answered at once by superposition, so it is finished when made. */
+const sweepBody = () => ({ revisionId, parameters: [{ pointer: '/ports/0/potential', range: { kind: 'list', values: [100, 200] } }], outputs: ['portCurrents'], cells: 40 });
+
+async function freshSweep(): Promise<number> {
+  const r = await call(t.base, 'POST', '/api/sweeps', { token: owner(), body: sweepBody() });
+  if (r.status !== 201) throw new Error(`sweep setup failed: ${r.status} ${JSON.stringify(r.body)}`);
   return r.body.id;
 }
 
@@ -191,6 +201,16 @@ const ROWS: Row[] = [
   },
   { route: 'DELETE /api/library/:id', who: EDITORS, ok: 204, make: async () => ({ method: 'DELETE', path: `/api/library/${await freshLibraryItem()}` }) },
   { route: 'DELETE /api/library/:id', variant: 'built-in entry', who: 'nobody', ok: 204, make: async () => ({ method: 'DELETE', path: `/api/library/${builtInId}` }) },
+  { route: 'POST /api/sweeps', who: EDITORS, ok: 201, make: async () => ({ method: 'POST', path: '/api/sweeps', body: sweepBody() }) },
+  { route: 'GET /api/designs/:id/sweeps', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/designs/${designId}/sweeps` }) },
+  { route: 'GET /api/sweeps/:id', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/sweeps/${sweepId}` }) },
+  // The sweep has finished, so its event stream sends the snapshot and ends.
+  { route: 'GET /api/sweeps/:id/events', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/sweeps/${sweepId}/events` }) },
+  { route: 'POST /api/sweeps/:id/cancel', who: EDITORS, ok: 200, make: async () => ({ method: 'POST', path: `/api/sweeps/${sweepId}/cancel` }) },
+  {
+    route: 'POST /api/sweeps/:id/points/:index/run', who: EDITORS, ok: 201,
+    make: async () => ({ method: 'POST', path: `/api/sweeps/${await freshSweep()}/points/0/run` }),
+  },
   { route: 'GET /api/dev/mailbox', who: 'public', ok: 200, make: async () => ({ method: 'GET', path: '/api/dev/mailbox', token: null }) },
   { route: 'GET /api/dev/mailbox/:id', who: 'public', ok: 200, make: async () => ({ method: 'GET', path: `/api/dev/mailbox/${t.mail.mailbox.list()[0]!.id}`, token: null }) },
 ];
@@ -214,6 +234,7 @@ beforeAll(async () => {
   libraryId = await freshLibraryItem();
   const library = await call(t.base, 'GET', `/api/workspaces/${team.wid}/library`, { token: owner() });
   builtInId = library.body.find((i: { builtIn: boolean }) => i.builtIn).id;
+  sweepId = await freshSweep();
 });
 
 afterAll(async () => {
