@@ -2,7 +2,7 @@
  * solveDesign: the one entry point the command line, the Web Worker and the server call.
  *
  *   design JSON → validated design (shared/design.ts) → cut-cell grid and geometry checks
- *   → electric potential, port currents (solver/potential) → flow (interim: u = μ_eo E)
+ *   → electric potential, port currents (solver/potential) → flow (Stokes–Brinkman, solver/flow)
  *   → metrics, validity warnings, probes and per-cell fields.
  *
  * Pure TypeScript: no Node built-ins, so it runs in the browser's worker too. Every refusal is a
@@ -16,7 +16,8 @@ import { electrodePower, maxPowerPerLength } from './potential/joule';
 import { PotentialCancelled, solvePotential } from './potential/potential-solve';
 import { asSolveError, geometryRefusal, invalidDesign, SolveError } from './result/errors';
 import { rangeErrors } from './result/limits';
-import { interimFlow, type FlowInput, type FlowOutput } from './result/interim-flow';
+import type { FlowInput, FlowOutput } from './result/interim-flow';
+import { stokesBrinkmanFlow } from './flow/flow-stage';
 import { sampleProbes } from './result/probes';
 import type { SolveFields, SolveResult } from './result/types';
 import { convergenceWarning, electrodeWarnings, geometryWarnings, physicsWarnings } from './result/warnings';
@@ -45,8 +46,8 @@ export interface SolveOptions {
   tolerance?: number;
 }
 
-/** The flow stage; the Stokes–Brinkman solver of solver/flow/ will take the interim model's place here. */
-const solveFlow: (input: FlowInput) => FlowOutput = interimFlow;
+/** The flow stage: depth-averaged Stokes–Brinkman with Smoluchowski slip (solver/flow). */
+const solveFlow: (input: FlowInput) => FlowOutput = stokesBrinkmanFlow;
 
 const DEFAULT_TOLERANCE = 1e-8;
 
@@ -115,8 +116,11 @@ function solveValidated(design: DesignDocument, options: SolveOptions): SolveRes
   // Flow.
   progress('flow', 0);
   const flowStart = now();
+  const [xmin, ymin, xmax, ymax] = region.bounds;
+  const narrowest = disc.widths?.narrowest?.width ?? Math.min(xmax - xmin, ymax - ymin);
   const flow = solveFlow({
     design, grid, active: pot.active, potential: pot.potential, field, portCurrent: pot.portCurrent, shouldStop: options.shouldStop,
+    portPotential: pot.portPotential, tolerance, onProgress: (f) => progress('flow', f), narrowestWidth: narrowest,
   });
   const flowSeconds = (now() - flowStart) / 1000;
   progress('flow', 1);
@@ -149,8 +153,6 @@ function solveValidated(design: DesignDocument, options: SolveOptions): SolveRes
 
   const { buffer } = design;
   const lambda = debyeLength(buffer.relativePermittivity, buffer.temperature, buffer.ionicStrength);
-  const [xmin, ymin, xmax, ymax] = region.bounds;
-  const narrowest = disc.widths?.narrowest?.width ?? Math.min(xmax - xmin, ymax - ymin);
   const re = reynolds(buffer.density, maxSpeed, narrowest, design.depth, buffer.viscosity);
   const portVoltages = pot.portPotential.filter((v): v is number => v !== null).map(Math.abs);
   const warnings = [

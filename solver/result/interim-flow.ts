@@ -27,6 +27,14 @@ export interface FlowInput {
   field: CellField;
   portCurrent: ArrayLike<number>;
   shouldStop?: () => boolean;
+  /** Potential of each port (V; the solved one of a floating port), for the field at the port faces. */
+  portPotential?: ReadonlyArray<number | null>;
+  /** Relative residual of the flow solve. */
+  tolerance?: number;
+  /** Fraction of the flow solve done, in [0, 1]. */
+  onProgress?: (fraction: number) => void;
+  /** Narrowest channel width (m), for the Reynolds number. */
+  narrowestWidth?: number;
 }
 
 export interface FlowOutput {
@@ -38,6 +46,11 @@ export interface FlowOutput {
   streamfunction: Float32Array;
   /** m³/s per port, positive into the fluid. */
   portFlowRate: Float64Array;
+  /** m/s per port: |Q| / (port width × depth), the mean speed in the channel leg the port feeds. */
+  portMeanSpeed?: Float64Array;
+  /** 1/s: largest in-plane shear rate at the side walls, and at floor and lid. */
+  maxWallShearRate?: number;
+  maxFloorShearRate?: number;
   iterations: number;
   residual: number;
   warnings: SolveWarning[];
