@@ -139,7 +139,7 @@ function makeCase(seed: number): Case {
   ];
   const count = 1 + Math.floor(rnd() * 3);
   for (let k = 0; k < count; k++) pick(mutations)();
-  const cells = 48 + Math.floor(rnd() * 49);
+  const cells = 40 + Math.floor(rnd() * 33); // 40–72 cells along the long side: small grids, many cases
   const probes = Array.from({ length: Math.floor(rnd() * 3) }, (): [number, number] => [near(), near()]);
   return { design, cells, probes, what };
 }
@@ -153,9 +153,11 @@ describe('fuzz: mutated designs solve or are refused with a message', () => {
     const codes = new Map<string, number>();
     const failures: string[] = [];
     let slowest = { ms: 0, seed: 0 };
+    const spent = { solved: 0, refused: 0 };
     for (let seed = FIRST_SEED; seed < FIRST_SEED + CASES && failures.length < 5; seed++) {
       const c = makeCase(seed);
       const started = Date.now();
+      let outcome: 'solved' | 'refused' = 'refused';
       try {
         const r = solveDesign(c.design, { cells: c.cells, probes: c.probes });
         const currents = r.ports.map((p) => p.current);
@@ -165,6 +167,7 @@ describe('fuzz: mutated designs solve or are refused with a message', () => {
         if (Math.abs(currents.reduce((a, b) => a + b, 0)) > 1e-4 * scale + 1e-15) throw new Error(`Kirchhoff's sum is off: ${currents.join(', ')}`);
         if (r.fields.potential.length !== r.grid.nx * r.grid.ny) throw new Error('fields do not match the grid');
         tally.solved++;
+        outcome = 'solved';
       } catch (error) {
         if (error instanceof SolveError && error.kind === 'refused' && error.message.length > 10 && !/\n/.test(error.message)) {
           tally.refused++;
@@ -174,11 +177,12 @@ describe('fuzz: mutated designs solve or are refused with a message', () => {
         }
       }
       const ms = Date.now() - started;
+      spent[outcome] += ms;
       if (ms > slowest.ms) slowest = { ms, seed };
     }
     console.log(
       `fuzz: ${tally.solved} solved, ${tally.refused} refused (${[...codes].map(([k, v]) => `${k} ${v}`).join(', ')}); ` +
-        `slowest case ${slowest.ms} ms (seed ${slowest.seed})`,
+        `${(spent.solved / 1000).toFixed(1)} s solving, ${(spent.refused / 1000).toFixed(1)} s refusing; slowest case ${slowest.ms} ms (seed ${slowest.seed})`,
     );
     expect(failures).toEqual([]);
   });
