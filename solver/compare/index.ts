@@ -1,0 +1,1 @@
+export { compareDrives, type Comparison, type ComparisonSide } from './compare';
