@@ -5,7 +5,8 @@
  * OUP 2014, ch. 4): Lanczos in the M⁻¹ inner product, Givens rotations for the least-squares problem, short
  * recurrences. The iterate minimises ‖b − K x‖ in the M⁻¹ norm over the Krylov space; |η| tracks that norm.
  *
- * Storage: x, b (overwritten, used as a work vector) and five work vectors.
+ * Storage: x, b (overwritten, used as a work vector) and four work vectors: the next search direction is
+ * accumulated before the preconditioner overwrites the current z, and scaled once the rotation is known.
  */
 
 export interface MinresOptions {
@@ -41,8 +42,7 @@ export function minres(
   x.fill(0);
   let v: Float64Array = b;
   let vPrev: Float64Array = new Float64Array(n);
-  let z: Float64Array = new Float64Array(n);
-  let zNext: Float64Array = new Float64Array(n);
+  const z: Float64Array = new Float64Array(n);
   let w: Float64Array = new Float64Array(n);
   let wPrev: Float64Array = new Float64Array(n);
   const history: number[] = [];
@@ -65,24 +65,29 @@ export function minres(
     const delta = dot(vPrev, z);
     axpy(vPrev, -delta / gamma, v);
     [v, vPrev] = [vPrev, v];
-    precondition(v, zNext);
-    const gammaNext = Math.sqrt(Math.max(dot(zNext, v), 0));
-    // Apply the previous two rotations to the new column of the tridiagonal matrix, then make the next one.
+    // Apply the previous two rotations to the new column of the tridiagonal matrix; the new direction
+    // w_{j+1} = (z_j − a3 w_{j−1} − a2 w_j)/a1 is accumulated now, while z_j is still there.
     const a0 = c * delta - cPrev * s * gamma;
-    const a1 = Math.hypot(a0, gammaNext);
     const a2 = s * delta + cPrev * c * gamma;
     const a3 = sPrev * gamma;
+    for (let i = 0; i < n; i++) wPrev[i] = z[i] - a3 * wPrev[i] - a2 * w[i];
+    precondition(v, z);
+    const gammaNext = Math.sqrt(Math.max(dot(z, v), 0));
+    const a1 = Math.hypot(a0, gammaNext);
     if (!(a1 > 0)) break; // singular: no progress possible
     const cNext = a0 / a1, sNext = gammaNext / a1;
-    for (let i = 0; i < n; i++) wPrev[i] = (z[i] - a3 * wPrev[i] - a2 * w[i]) / a1;
+    const inv = 1 / a1, step = cNext * eta;
+    for (let i = 0; i < n; i++) {
+      const wi = wPrev[i] * inv;
+      wPrev[i] = wi;
+      x[i] += step * wi;
+    }
     [w, wPrev] = [wPrev, w];
-    axpy(x, cNext * eta, w);
     eta = -sNext * eta;
     rel = Math.abs(eta) / eta0;
     history.push(rel);
     cPrev = c; c = cNext; sPrev = s; s = sNext;
     gammaPrev = gamma; gamma = gammaNext;
-    [z, zNext] = [zNext, z];
     if (rel <= tol || !(gamma > 0)) break;
     if (options.onIteration?.(it, rel) === false) break;
   }

@@ -88,11 +88,12 @@ export function solveFlow(problem: FlowProblem, options: FlowOptions = {}): Flow
     alpha: depthFriction(problem), viscosity: problem.viscosity, sweeps,
   });
   const velocity = momentum.map((m) => buildHierarchy(m.op, sweeps, 'extents', m.wallDistance)) as [Hierarchy, Hierarchy];
+  for (const h of [...velocity, schur.hierarchy]) releaseAssemblyArrays(h);
 
   const x = new Float64Array(sys.size);
   const bytes = hierarchyBytes(velocity[0]) + hierarchyBytes(velocity[1]) + hierarchyBytes(schur.hierarchy) +
     schur.stokesInverse.byteLength +
-    7 * x.byteLength + 2 * pressureActive.byteLength;
+    6 * x.byteLength + 2 * pressureActive.byteLength;
 
   const result = minres(
     (z, out, beta) => applySaddlePoint(sys, z, out, beta),
@@ -109,10 +110,10 @@ export function solveFlow(problem: FlowProblem, options: FlowOptions = {}): Flow
     },
   );
 
-  const [u, v, p] = blocks(sys, x);
-  const pressure = new Float64Array(np);
-  for (let c = 0; c < np; c++) pressure[c] = pressureActive[c] ? p[c] : Number.NaN;
-  merging.cell.forEach((t, k) => { pressure[t] = p[merging.into[k]]; });
+  // The solution vector itself holds u, v and p: no copies.
+  const [u, v, pressure] = blocks(sys, x);
+  merging.cell.forEach((t, k) => { pressure[t] = pressure[merging.into[k]]; });
+  for (let c = 0; c < np; c++) if (!pressureActive[c] && !fluid[c]) pressure[c] = Number.NaN;
   const portFlowRate = portFlowRates(ports, u, v, problem.depth, problem.portPressure.length);
   let net = 0, total = 0;
   for (const q of portFlowRate) {
@@ -120,8 +121,8 @@ export function solveFlow(problem: FlowProblem, options: FlowOptions = {}): Flow
     total += Math.abs(q);
   }
   return {
-    u: u.slice(),
-    v: v.slice(),
+    u,
+    v,
     pressure,
     portFlowRate,
     ports,
@@ -153,9 +154,22 @@ function pressureCells(problem: FlowProblem, ports: PortFaces): Uint8Array {
   return active;
 }
 
+/**
+ * After the hierarchy is built the cycles read only gx, gy, diag and active (and the coarsest factor): the
+ * reaction and boundary arrays served the assembly and the coarsening, and go.
+ */
+function releaseAssemblyArrays(h: Hierarchy): void {
+  for (const op of h.levels) {
+    op.reaction = new Float64Array(0);
+    op.boundary = new Float64Array(0);
+  }
+}
+
 function hierarchyBytes(h: Hierarchy): number {
   let n = 0;
-  for (const op of h.levels) n += op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength + op.active.byteLength;
+  for (const op of h.levels) n += op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength + op.active.byteLength + (op.runs?.byteLength ?? 0);
   for (const list of [h.b, h.x, h.r]) for (const a of list) n += a.byteLength;
+  const coarsest = h.coarsest as { unknowns?: number; bandwidth?: number };
+  if (coarsest.unknowns !== undefined && coarsest.bandwidth !== undefined) n += coarsest.unknowns * (coarsest.bandwidth + 2) * 8;
   return n;
 }
