@@ -11,6 +11,9 @@
  * 2008) has f = 1 − (192/π⁵)(d/w) Σ_{n odd} tanh(nπw/2d)/n⁵; the model's error against it is reported.
  */
 import { makeDesign } from '../fixtures/designs';
+import { flowFields } from '../../solver/flow/flow-fields';
+import { flowMetrics } from '../../solver/flow/flow-metrics';
+import { reynolds } from '../../solver/physics/electrokinetics';
 import { convergenceOrder, runFlow, type FlowRun } from './flow-helpers';
 
 const MU = 8.9002e-4; // WATER_25C viscosity
@@ -100,6 +103,32 @@ describe('straight channel under a pressure drop: the Brinkman profile across th
     );
     expect(order).toBeGreaterThan(1.2);
     expect(profile[profile.length - 1]).toBeLessThan(5e-3);
+  });
+});
+
+describe('derived numbers of the Brinkman channel', () => {
+  it('gives the wall shear rate, the floor shear rate, the top speed, the mean speed per port and the Reynolds number', () => {
+    const w = 1e-4, L = 4e-4, d = 5e-5, dp = 100, G = dp / L, k = Math.sqrt(12) / d;
+    const run = runFlow(channel(w, L, d, dp), 256, { tolerance: 1e-11 });
+    const fields = flowFields(run.problem, run.solution);
+    const m = flowMetrics(run.problem, run.solution, fields, { density: 997.047, narrowestWidth: w });
+    const U = (G * d * d) / (12 * MU);
+    const top = U * (1 - 1 / Math.cosh((k * w) / 2)); // centre of the channel
+    // From the closed form: du/dy at the side wall = U k tanh(k w/2); at floor and lid the Poiseuille part of
+    // the depth profile with mean ū has shear 6 ū/d (plane Poiseuille, White 2006).
+    const wallShear = U * k * Math.tanh((k * w) / 2);
+    const mean = run.solution.portFlowRate[0] / (w * d);
+    console.log(
+      `Brinkman channel metrics at 64 cells across: wall shear ${m.maxWallShearRate.toFixed(1)} 1/s (closed form ${wallShear.toFixed(1)}), ` +
+        `floor shear ${m.maxFloorShearRate.toFixed(1)} 1/s (6 u_max/d = ${((6 * top) / d).toFixed(1)}), top speed ${m.maxSpeed.toExponential(4)} m/s ` +
+        `(${top.toExponential(4)}), mean speed at the inlet ${m.portMeanSpeed[0].toExponential(4)} m/s, Re ${m.reynolds.toFixed(3)}`,
+    );
+    expect(Math.abs(m.maxWallShearRate / wallShear - 1)).toBeLessThan(5e-3);
+    expect(Math.abs(m.maxFloorShearRate / ((6 * top) / d) - 1)).toBeLessThan(1e-3);
+    expect(Math.abs(m.maxSpeed / top - 1)).toBeLessThan(1e-3);
+    expect(m.portMeanSpeed[0]).toBeCloseTo(mean, 12);
+    expect(m.portMeanSpeed[1]).toBeCloseTo(mean, 9);
+    expect(m.reynolds).toBeCloseTo(reynolds(997.047, m.maxSpeed, w, d, MU), 12);
   });
 });
 
