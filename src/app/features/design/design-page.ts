@@ -92,6 +92,8 @@ export class DesignPage implements LeaveCheck {
   protected readonly revisions = signal<RevisionSummary[] | null>(null);
   /** Bumped when History should read again (revision saved, run stored, review moved). */
   protected readonly historyVersion = signal(0);
+  /** Bumped by the header's Solve button; the Fields tab solves when it changes. */
+  protected readonly solveRequest = signal(0);
 
   protected readonly role = computed<Role | null>(() => {
     const d = this.design();
@@ -337,6 +339,12 @@ export class DesignPage implements LeaveCheck {
       this.snack.open(errorMessage(err), 'Close', { duration: 8000 });
       return false;
     }
+  }
+
+  /** Solve from any tab: the Fields tab opens and solves the working document. */
+  protected solveFromPage(): void {
+    this.solveRequest.update((v) => v + 1);
+    this.selectTab(DESIGN_TABS.indexOf('fields'));
   }
 
   protected onRunSaved(): void {

@@ -16,18 +16,20 @@ export interface MapSpec {
   label: string;
   /** Name with its symbol, for colour bars, plots and the readout. */
   title: string;
+  /** The symbol alone (colour bar heading). */
+  symbol: string;
   dimension: Dimension;
   /** How the range is chosen: from 0 up (magnitude), symmetric about 0 (signed), or the values' own range. */
   scale: 'magnitude' | 'signed' | 'range';
 }
 
 export const MAPS: Readonly<Record<MapId, MapSpec>> = {
-  potential: { id: 'potential', label: 'Potential', title: 'Potential φ', dimension: 'potential', scale: 'range' },
-  fieldStrength: { id: 'fieldStrength', label: 'Field |E|', title: 'Field strength |E|', dimension: 'fieldStrength', scale: 'magnitude' },
-  speed: { id: 'speed', label: 'Speed |u|', title: 'Speed |u|', dimension: 'velocity', scale: 'magnitude' },
-  vorticity: { id: 'vorticity', label: 'Vorticity', title: 'Vorticity ω', dimension: 'vorticity', scale: 'signed' },
-  pressure: { id: 'pressure', label: 'Pressure', title: 'Pressure p (gauge)', dimension: 'pressure', scale: 'signed' },
-  streamfunction: { id: 'streamfunction', label: 'Streamfunction', title: 'Streamfunction ψ', dimension: 'streamfunction', scale: 'range' },
+  potential: { id: 'potential', label: 'Potential', title: 'Potential φ', symbol: 'φ', dimension: 'potential', scale: 'range' },
+  fieldStrength: { id: 'fieldStrength', label: 'Field |E|', title: 'Field strength |E|', symbol: '|E|', dimension: 'fieldStrength', scale: 'magnitude' },
+  speed: { id: 'speed', label: 'Speed |u|', title: 'Speed |u|', symbol: '|u|', dimension: 'velocity', scale: 'magnitude' },
+  vorticity: { id: 'vorticity', label: 'Vorticity', title: 'Vorticity ω', symbol: 'ω', dimension: 'vorticity', scale: 'signed' },
+  pressure: { id: 'pressure', label: 'Pressure', title: 'Pressure p (gauge)', symbol: 'p', dimension: 'pressure', scale: 'signed' },
+  streamfunction: { id: 'streamfunction', label: 'Streamfunction', title: 'Streamfunction ψ', symbol: 'ψ', dimension: 'streamfunction', scale: 'range' },
 };
 
 /** Share of the largest values left above the colour range (singular corners would otherwise wash the map out). */

@@ -33,6 +33,8 @@ export interface ShownSolve {
   stored?: { by: string; at: string };
   /** Time of the solve as the page saw it (ms), for a fresh solve. */
   pageMs?: number;
+  /** For a fresh solve: the summary a saved run stores. */
+  summary?: RunSummary;
 }
 
 /** Settings stored with a run (POST .../runs `settings`). */
@@ -58,6 +60,7 @@ export function fromSolve(result: SolveResult, document: DesignDocument, extra: 
     cellsAcross: extra.cellsAcross,
     narrowest: extra.narrowest,
     pageMs: extra.pageMs,
+    summary: runSummary(result),
   };
 }
 

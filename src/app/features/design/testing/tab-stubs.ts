@@ -24,5 +24,7 @@ export class FieldsView {
   readonly document = input.required<DesignDocument>();
   readonly revisionId = input<string | number | null>(null);
   readonly readOnly = input(false);
+  readonly runId = input<string | number | null>(null);
+  readonly solveRequest = input(0);
   readonly runSaved = output<void>();
 }
