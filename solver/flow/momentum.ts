@@ -24,8 +24,12 @@
  *   along b with length L|n_b|/2 at distance max(ã h/2, δ_min) (the node taken at the middle of its face's
  *   open part, so a wall on the grid line is at h/2 as in the ghost-cell MAC scheme); along a (a wall across
  *   the component, e.g. a closed channel end) with length L|n_a| at the distance from the face to the
- *   segment's midpoint. Port segments pull only along b (zero tangential velocity on the port); along a
- *   a port is a natural (∂u_n/∂n = 0) boundary.
+ *   segment's midpoint. A port segment pulls only a component tangential to it (zero tangential velocity
+ *   on a port along a grid line); along a a port is a natural (∂u_n/∂n = 0) boundary. An oblique port
+ *   (a staircase of port faces, port-faces.ts) pulls neither component: pinning both Cartesian components
+ *   on every step would turn the staircase into a no-slip wall as h → 0 (measured: the flow through a port
+ *   at 30° fell to 0.34 of its value at 87 cells across), so there the tangential velocity is left free,
+ *   the usual pressure (do-nothing) outlet.
  */
 import { segmentRange } from '../grid/cut-cell-grid';
 import { createOperator, finishOperator, type Operator5 } from '../multigrid/operator';
@@ -35,6 +39,8 @@ import type { Component } from './staggered';
 
 /** Least node-to-wall distance, in cells: keeps wall conductances finite next to slivers. */
 export const MIN_WALL_DISTANCE = 0.05;
+/** A component counts as tangential to a port segment when |n_a| is below this (about 1°). */
+const PORT_TANGENT_SIN = 0.02;
 const MIN_PROJECTION = 1e-9;
 
 export interface MomentumOperator {
@@ -118,7 +124,7 @@ export function assembleMomentum(
     const isPort = seg.port[s] >= 0;
     const value = isPort ? 0 : slipA[s];
     const nA = comp.segmentNormalA(s), nB = comp.segmentNormalB(s);
-    if (Math.abs(nB) > MIN_PROJECTION) {
+    if (Math.abs(nB) > MIN_PROJECTION && !(isPort && Math.abs(nA) >= PORT_TANGENT_SIN)) {
       const w = (seg.length[s] * Math.abs(nB)) / 2;
       for (const n of [comp.node(a, b), comp.node(a + 1, b)]) {
         if (eff[n] > 0) pull(n, (mu * w) / Math.max((eff[n] * h) / 2, floor), w / h, value);
@@ -169,17 +175,20 @@ export function assembleMomentum(
     const base = comp.tangentialPlane(b);
     const anchored = effAt(a, b - dir) > 0;
     const end = anchored ? (dir > 0 ? base + e * h : base + h - e * h) : base + h / 2 + (dir * e * h) / 2;
-    let value = 0, best = Infinity;
+    let nearest = -1, best = Infinity;
     for (const c of [comp.cell(a - 1, b), comp.cell(a, b), comp.cell(a - 1, nb), comp.cell(a, nb)]) {
       const [s0, s1] = segmentRange(grid, c);
       for (let s = s0; s < s1; s++) {
         const d = Math.hypot(comp.segmentMidA(s) - plane, comp.segmentMidB(s) - end);
         if (d < best) {
           best = d;
-          value = grid.segments.port[s] >= 0 ? 0 : slipA[s];
+          nearest = s;
         }
       }
     }
+    const isPort = nearest >= 0 && grid.segments.port[nearest] >= 0;
+    if (isPort && Math.abs(comp.segmentNormalA(nearest)) >= PORT_TANGENT_SIN) return; // free at an oblique port
+    const value = nearest < 0 || isPort ? 0 : slipA[nearest];
     pull(n, (mu * edge * h) / Math.max((e * h) / 2, MIN_WALL_DISTANCE * h), edge, value);
   }
 

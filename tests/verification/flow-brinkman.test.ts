@@ -106,6 +106,38 @@ describe('straight channel under a pressure drop: the Brinkman profile across th
   });
 });
 
+describe('a channel at 30° to the grid: cut walls everywhere and oblique (staircase) ports', () => {
+  it('converges to the closed-form flow rate, as a Stokes channel (d ≫ w, about first order) and as a Brinkman one', () => {
+    const w = 1e-4, L = 1e-3, dp = 100, G = dp / L;
+    const c = Math.cos(Math.PI / 6), s = Math.sin(Math.PI / 6);
+    const rotated = (d: number) => makeDesign({
+      depth: d,
+      zeta: { side: 0, floor: 0, lid: 0 },
+      shapes: [{ op: 'add', type: 'rect', x: 0, y: 0, width: L, height: w, angle: 30 }],
+      ports: [
+        { id: 'in', from: [0, 0], to: [-s * w, c * w], potential: 0, pressure: dp },
+        { id: 'out', from: [c * L, s * L], to: [c * L - s * w, s * L + c * w], potential: 0, pressure: 0 },
+      ],
+    });
+    const lines: string[] = [];
+    for (const d of [2, 5e-5]) {
+      const exact = d > 1 ? (d * G * w ** 3) / (12 * MU) : (brinkman(w, d, G).factor * w * d ** 3 * G) / (12 * MU);
+      const h: number[] = [], err: number[] = [];
+      for (const cells of [100, 200, 400]) {
+        const run = runFlow(rotated(d), cells, { tolerance: 1e-10 });
+        h.push(run.grid.spacing);
+        err.push(Math.abs(run.solution.portFlowRate[0] / exact - 1));
+      }
+      const order = convergenceOrder(h, err);
+      lines.push(`d = ${d} m: flow rate error ${err.map((e) => e.toExponential(2)).join(', ')} at ${h.map((x) => (w / x).toFixed(0)).join(', ')} cells across (order ${order.toFixed(2)})`);
+      expect(err[2]).toBeLessThan(err[0]);
+      expect(err[2]).toBeLessThan(0.015);
+      if (d > 1) expect(order).toBeGreaterThan(0.7);
+    }
+    console.log(`Channel at 30°:\n  ${lines.join('\n  ')}`);
+  });
+});
+
 describe('derived numbers of the Brinkman channel', () => {
   it('gives the wall shear rate, the floor shear rate, the top speed, the mean speed per port and the Reynolds number', () => {
     const w = 1e-4, L = 4e-4, d = 5e-5, dp = 100, G = dp / L, k = Math.sqrt(12) / d;
