@@ -5,9 +5,16 @@ import type { DesignDocument } from '../../shared/design';
 
 export type SolverTask =
   | { kind: 'point'; document: unknown; pointers: string[]; values: number[]; cells: number }
-  | { kind: 'superposed'; document: DesignDocument; pointers: string[]; points: number[][]; cells: number };
+  | { kind: 'superposed'; document: DesignDocument; pointers: string[]; points: number[][]; cells: number }
+  /** A full solve kept as a run: the summary (the command line's JSON) and the compressed field blob. */
+  | { kind: 'run'; document: unknown; cells: number };
 
-type Value<T extends SolverTask> = T extends { kind: 'point' } ? SweepPointResult : SweepPointResult[];
+export interface RunSolve {
+  summary: Record<string, unknown>;
+  blob: Uint8Array;
+}
+
+type Value<T extends SolverTask> = T extends { kind: 'point' } ? SweepPointResult : T extends { kind: 'run' } ? RunSolve : SweepPointResult[];
 
 export interface SolverRequest {
   id: number;

@@ -159,30 +159,33 @@ export class SweepService {
   }
 
   /**
-   * A solved point as an ordinary run of the revision: its summary, and settings that carry the point's document
-   * (so the Fields tab can solve it again for the maps). Opening the same point again answers the same run.
+   * A solved point as an ordinary run of the revision: the point's document is solved once more in a solver thread
+   * and stored like a run saved from the Fields tab (summary and field blob), with settings that name the sweep
+   * and carry the point's document. Opening the same point again answers the same run.
    */
   async openPoint(access: Access, id: number, index: number): Promise<RunCreated & { created: boolean }> {
     const em = this.orm.em.fork();
-    const row = await queryRow<{ revision_id: number; method: string; cells: number; parameters: SweepParameterInfo[]; document: unknown; values: number[]; status: string; result: SweepPointResult | null; run_id: number | null }>(
+    const row = await queryRow<{ revision_id: number; method: string; cells: number; parameters: SweepParameterInfo[]; document: unknown; values: number[]; status: string; run_id: number | null }>(
       em,
-      `select s.revision_id, s.method, s.cells, s.parameters, r.document, p."values", p.status, p.result, p.run_id
+      `select s.revision_id, s.method, s.cells, s.parameters, r.document, p."values", p.status, p.run_id
        from sweep_points p join sweeps s on s.id = p.sweep_id join revisions r on r.id = s.revision_id where p.sweep_id = ? and p."index" = ?`,
       [id, index],
     );
     if (!row) throw new ApiError('not-found', `No point ${index} in this sweep`);
     if (row.run_id !== null) return { id: row.run_id, created: false };
-    if (row.status !== 'solved' || !row.result) throw new ApiError('conflict', `Point ${index + 1} is ${row.status}, not solved; only solved points open as runs`);
-    const pointers = row.parameters.map((p) => p.pointer);
+    if (row.status !== 'solved') throw new ApiError('conflict', `Point ${index + 1} is ${row.status}, not solved; only solved points open as runs`);
     const parsed = parseDesign(row.document);
+    const document = pointDocument(parsed.ok ? parsed.design : row.document, row.parameters.map((p) => p.pointer), row.values);
+    const solved = await this.pool.run({ kind: 'run', document, cells: row.cells });
     const settings = {
       cells: row.cells,
+      cellsAcross: null,
+      narrowest: null,
       source: 'sweep',
       sweep: { id, point: index, method: row.method, parameters: row.parameters.map((p, k) => ({ pointer: p.pointer, label: p.label, value: row.values[k] })) },
-      document: pointDocument(parsed.ok ? parsed.design : row.document, pointers, row.values),
+      document,
     };
-    const summary = { ports: row.result.ports, metrics: row.result.metrics, warnings: row.result.warnings, grid: row.result.grid };
-    const created = await this.runs.create(access, row.revision_id, { settings, summary, status: 'solved' });
+    const created = await this.runs.create(access, row.revision_id, { settings, summary: solved.summary, fields: Buffer.from(solved.blob).toString('base64'), status: 'solved' });
     const linked = await run(em, 'update sweep_points set run_id = ? where sweep_id = ? and "index" = ? and run_id is null', [created.id, id, index]);
     if (linked === 0) {
       const other = await queryRow<{ run_id: number }>(em, 'select run_id from sweep_points where sweep_id = ? and "index" = ?', [id, index]);
