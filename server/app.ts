@@ -14,6 +14,7 @@ import { authRoutes } from './routes/auth';
 import { ApiRoutes, type RouteInfo } from './routes/define';
 import { designRoutes } from './routes/designs';
 import { devRoutes } from './routes/dev';
+import { fileRoutes } from './routes/files';
 import { healthRoutes } from './routes/health';
 import { libraryRoutes } from './routes/library';
 import { sweepRoutes } from './routes/sweeps';
@@ -82,6 +83,7 @@ export function createApp(ctx: AppContext): Express {
   designRoutes(api, services);
   libraryRoutes(api, services);
   sweepRoutes(api, services);
+  fileRoutes(api, services, config);
   // The mailbox holds live invitation and reset links: only outside production, and only for the local stand-in.
   if (config.devRoutes && !config.smtpUrl) devRoutes(api, mailbox);
   api.router.use(notFoundRoute);

@@ -5,6 +5,7 @@ import { openDatabase } from './db/orm';
 import { startMail } from './mail';
 import { spawnWorker } from './jobs/spawn';
 import { seedDemo } from './seed/demo';
+import { startStorage } from './storage';
 
 /** Starts the server: database (migrated, seeded on request), mail, then HTTP; stops all cleanly on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -15,7 +16,9 @@ async function main(): Promise<void> {
   }
   const mail = await startMail(config);
   if (!config.smtpUrl) console.log(`[server] mail goes to the local stand-in at ${mail.smtpUrl}${config.devRoutes ? ' (read it at /api/dev/mailbox)' : ''}`);
-  const app = createApp({ config, orm, mail });
+  const storage = await startStorage(config, orm);
+  console.log(`[server] run fields and uploaded drawings go to ${storage.where}`);
+  const app = createApp({ config, orm, mail, blobs: storage.blobs });
   const server: Server = app.listen(config.port, config.host, () => {
     console.log(`[server] Osmolane ${config.version} on http://${config.host}:${config.port}`);
   });
@@ -38,6 +41,7 @@ async function main(): Promise<void> {
       await appLocals(app).idle();
       await background.catch((err: unknown) => console.error('[server] sweep queue did not stop cleanly:', err));
       await mail.close().catch((err: unknown) => console.error('[server] mail did not stop cleanly:', err));
+      await storage.close().catch((err: unknown) => console.error('[server] storage did not stop cleanly:', err));
       await orm.close(true);
       process.exit(0);
     });

@@ -7,10 +7,12 @@ import { AccessService } from './access';
 import { ActivityService } from './activity';
 import { AuthService } from './auth';
 import { PgBlobStore, type BlobStore } from './blob-store';
+import { DesignFileService } from './design-files';
 import { DesignService } from './designs';
 import { InvitationService } from './invitations';
 import { LibraryService } from './library';
 import { RevisionService } from './revisions';
+import { RunExportService } from './run-exports';
 import { RunService } from './runs';
 import { SweepEvents } from './sweep-events';
 import { SweepService } from './sweeps';
@@ -30,6 +32,8 @@ export interface Services {
   sweepEvents: SweepEvents;
   /** Ends what runs beside the requests: sweep event streams, the job queue's connections, solver threads. */
   stop(): Promise<void>;
+  files: DesignFileService;
+  exports: RunExportService;
 }
 
 export interface ServiceDeps {
@@ -52,13 +56,14 @@ export function createServices(deps: ServiceDeps): Services {
   // One solver thread for sweeps answered by superposition, so the unit solves never hold up requests.
   const pool = new SolverPool(1);
   const sweepEvents = new SweepEvents(orm);
+  const designs = new DesignService(orm, config, mailer, activity);
   return {
     access: new AccessService(orm),
     activity,
     auth,
     workspaces,
     invitations: new InvitationService(orm, config, mailer, auth, workspaces, activity),
-    designs: new DesignService(orm, config, mailer, activity),
+    designs,
     revisions: new RevisionService(orm, activity),
     runs,
     library: new LibraryService(orm, activity),
@@ -68,5 +73,7 @@ export function createServices(deps: ServiceDeps): Services {
       sweepEvents.close();
       await Promise.all([queue.stop(), pool.close()]);
     },
+    files: new DesignFileService(orm, blobs, activity, designs),
+    exports: new RunExportService(orm, config),
   };
 }

@@ -8,7 +8,7 @@ export interface LocalS3 {
 
 /**
  * A local S3-compatible stand-in (s3rver) on loopback with its objects under `directory`, for when no S3
- * endpoint is configured, like the local SMTP stand-in for mail. It accepts any credentials.
+ * endpoint is configured, like the local SMTP stand-in for mail. It signs with the fixed key pair S3RVER/S3RVER.
  */
 export async function startLocalS3(directory: string, bucket: string): Promise<LocalS3> {
   mkdirSync(directory, { recursive: true });

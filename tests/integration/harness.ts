@@ -8,6 +8,7 @@ import { appLocals, createApp } from '../../server/app';
 import { loadConfig, type ServerConfig } from '../../server/config';
 import { openDatabase } from '../../server/db/orm';
 import { startMail, type MailSystem } from '../../server/mail';
+import { startStorage, type Storage } from '../../server/storage';
 import { demoDesigns } from '../../server/seed/designs';
 
 /**
@@ -20,10 +21,11 @@ export interface TestServer {
   orm: MikroORM;
   config: ServerConfig;
   mail: MailSystem;
+  storage: Storage | null;
   close(): Promise<void>;
 }
 
-export async function startTestServer(overrides: Partial<ServerConfig> = {}): Promise<TestServer> {
+export async function startTestServer(overrides: Partial<ServerConfig> = {}, options: { storage?: boolean } = {}): Promise<TestServer> {
   const orm = await openDatabase();
   const config: ServerConfig = {
     ...loadConfig(),
@@ -33,7 +35,9 @@ export async function startTestServer(overrides: Partial<ServerConfig> = {}): Pr
     ...overrides,
   };
   const mail = await startMail(config);
-  const app = createApp({ config, orm, mail });
+  // Object storage (the local S3 stand-in) only where a test asks for it; otherwise blobs stay in PostgreSQL.
+  const storage = options.storage ? await startStorage(config, orm) : null;
+  const app = createApp({ config, orm, mail, blobs: storage?.blobs });
   const server: Server = app.listen(0, '127.0.0.1');
   await new Promise((r) => server.once('listening', r));
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -43,11 +47,13 @@ export async function startTestServer(overrides: Partial<ServerConfig> = {}): Pr
     orm,
     config,
     mail,
+    storage,
     async close() {
       await appLocals(app).stop();
       server.closeAllConnections();
       await new Promise((r) => server.close(r));
       await mail.close();
+      await storage?.close();
       await orm.close(true);
     },
   };
@@ -66,6 +72,8 @@ export interface CallOptions {
   body?: unknown;
   /** A raw body sent as is with content-type JSON (for malformed and oversized bodies). */
   raw?: string;
+  /** A multipart form (uploads); fetch sets the content type. */
+  form?: FormData;
   cookie?: string;
 }
 
@@ -77,9 +85,10 @@ export async function call<T = any>(base: string, method: string, path: string, 
   if (opts.raw !== undefined) payload = opts.raw;
   else if (opts.body !== undefined) payload = JSON.stringify(opts.body);
   if (payload !== undefined) headers['content-type'] = 'application/json';
-  const r = await fetch(`${base}${path}`, { method, headers, body: payload });
+  const r = await fetch(`${base}${path}`, { method, headers, body: opts.form ?? payload });
   const type = r.headers.get('content-type') ?? '';
-  const body = type.includes('json') ? await r.json() : type.includes('octet-stream') ? Buffer.from(await r.arrayBuffer()) : await r.text();
+  const binary = type.includes('octet-stream') || type.includes('pdf') || type.includes('image/png');
+  const body = type.includes('json') ? await r.json() : binary ? Buffer.from(await r.arrayBuffer()) : await r.text();
   const set = r.headers.getSetCookie().find((c) => c.startsWith('osm_refresh='));
   return { status: r.status, body: body as T, headers: r.headers, cookie: set?.split(';')[0] };
 }
