@@ -21,6 +21,7 @@ import { ConfirmDialog, type ConfirmData } from '../../ui/confirm-dialog';
 import { ReviewChip } from '../../ui/review-chip';
 import { ConditionsPanel } from '../conditions/conditions-panel';
 import { FieldsView } from '../fields/fields-view';
+import { ExportMenu } from '../files/export-menu';
 import { HistoryTab } from '../history/history-tab';
 import { SketchEditor } from '../sketch/sketch-editor';
 import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
@@ -56,6 +57,7 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'conflict' | 'failed';
     ConditionsPanel,
     FieldsView,
     HistoryTab,
+    ExportMenu,
   ],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',

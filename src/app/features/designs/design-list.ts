@@ -20,6 +20,7 @@ import { canEdit } from '../../core/roles';
 import { WorkspaceContext } from '../../core/workspace-context';
 import { ReviewChip } from '../../ui/review-chip';
 import { NewDesignDialog, type NewDesignData } from './new-design-dialog';
+import { ImportOutlineDialog, type ImportOutlineData } from '../files/import-outline-dialog';
 
 type SortKey = 'name' | 'updatedAt' | 'reviewState';
 
@@ -127,6 +128,17 @@ export class DesignList {
 
   protected clearFilter(): void {
     this.filter.setValue('');
+  }
+
+  protected importOutline(): void {
+    const ws = this.context.current();
+    if (!ws) return;
+    this.dialog
+      .open<ImportOutlineDialog, ImportOutlineData, { id: number }>(ImportOutlineDialog, { data: { workspaceId: ws.id }, width: '760px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((design) => {
+        if (design) void this.router.navigate(['/designs', String(design.id)]);
+      });
   }
 
   protected newDesign(): void {
