@@ -32,6 +32,8 @@ export default defineConfig({
       SEED_DEMO: '1',
       DEMO_PASSWORD: 'osmolane-demo',
       LOG_REQUESTS: '0',
+      // One sweep worker process beside the server, as npm start runs it.
+      START_WORKER: '1',
     },
     reuseExistingServer: false,
     timeout: 120_000,

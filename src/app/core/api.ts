@@ -1,7 +1,7 @@
-import { HttpClient, HttpContext, HttpContextToken, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpContext, HttpContextToken, HttpEventType, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { Observable } from 'rxjs';
-import type { DesignFileInfo, HealthResponse, ImportCreated, ImportPreview, MapQuantityName, RevisionCreated, RunCreated, RunExportFormat } from '../../../shared/api';
+import { Observable } from 'rxjs';
+import type { HealthResponse, RevisionCreated, RunCreated, SweepDetail, SweepEvent, SweepRequest, SweepSummary } from '../../../shared/api';
 import type {
   ActivityItem,
   Comment,
@@ -29,6 +29,7 @@ import type {
   User,
   Workspace,
 } from './api-types';
+import { parseEventStream } from './event-stream';
 
 /**
  * How the auth interceptor treats a request: `bearer` adds the access token and refreshes once on 401;
@@ -47,14 +48,6 @@ function pageParams(query: PageQuery & Record<string, string | number | undefine
     if (value !== undefined && value !== '') params = params.set(key, String(value));
   }
   return params;
-}
-
-/** The multipart form of a drawing upload (the server reads `file`, `scale`, `name`, `preview`). */
-function importForm(file: File, fields: { scale?: number; name?: string; preview?: string }): FormData {
-  const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== '') form.append(k, String(v));
-  form.append('file', file, file.name);
-  return form;
 }
 
 /** The one client of the Osmolane HTTP API (see shared/api.md and the API plan). Every call is an Observable. */
@@ -174,33 +167,52 @@ export class Api {
   runFields(id: Key): Observable<ArrayBuffer> {
     return this.http.get(`/api/runs/${id}/fields`, { responseType: 'arraybuffer' });
   }
-  // ---- files: drawings in, outlines, run exports and reports out
-  previewImport(wid: Key, file: File, scale?: number): Observable<ImportPreview> {
-    return this.http.post<ImportPreview>(`/api/workspaces/${wid}/designs/import`, importForm(file, { scale, preview: '1' }));
-  }
-  importDesign(wid: Key, file: File, scale?: number, name?: string): Observable<ImportCreated> {
-    return this.http.post<ImportCreated>(`/api/workspaces/${wid}/designs/import`, importForm(file, { scale, name }));
-  }
-  deleteDesign(id: Key): Observable<void> {
-    return this.http.delete<void>(`/api/designs/${id}`);
-  }
-  designFiles(designId: Key): Observable<DesignFileInfo[]> {
-    return this.http.get<DesignFileInfo[]>(`/api/designs/${designId}/files`);
-  }
-  outlineFile(designId: Key, format: 'svg' | 'dxf'): Observable<Blob> {
-    return this.http.get(`/api/designs/${designId}/outline`, { params: { format }, responseType: 'blob' });
-  }
-  runExport(runId: Key, format: RunExportFormat, quantity: MapQuantityName = 'potential'): Observable<Blob> {
-    return this.http.get(`/api/runs/${runId}/export`, { params: { format, quantity }, responseType: 'blob' });
-  }
-  runReport(runId: Key): Observable<Blob> {
-    return this.http.get(`/api/runs/${runId}/report.pdf`, { responseType: 'blob' });
-  }
   comments(revisionId: Key): Observable<Comment[]> {
     return this.http.get<Comment[]>(`/api/revisions/${revisionId}/comments`);
   }
   addComment(revisionId: Key, body: string, at: [number, number] | null): Observable<Comment> {
     return this.http.post<Comment>(`/api/revisions/${revisionId}/comments`, at ? { body, at } : { body });
+  }
+
+  // ---- sweeps
+  startSweep(request: SweepRequest): Observable<SweepDetail> {
+    return this.http.post<SweepDetail>('/api/sweeps', request);
+  }
+  sweeps(designId: Key): Observable<SweepSummary[]> {
+    return this.http.get<SweepSummary[]>(`/api/designs/${designId}/sweeps`);
+  }
+  sweep(id: Key): Observable<SweepDetail> {
+    return this.http.get<SweepDetail>(`/api/sweeps/${id}`);
+  }
+  cancelSweep(id: Key): Observable<SweepDetail> {
+    return this.http.post<SweepDetail>(`/api/sweeps/${id}/cancel`, {});
+  }
+  /** Stores a solved point as a run of the sweep's revision (or answers the run it was opened as before). */
+  openSweepPoint(id: Key, index: number): Observable<RunCreated> {
+    return this.http.post<RunCreated>(`/api/sweeps/${id}/points/${index}/run`, {});
+  }
+  /**
+   * A sweep's progress as server-sent events, read with fetch through the interceptors (so the bearer token is
+   * sent and refreshed like any request's): the snapshot, then points and status; completes when the sweep ends.
+   */
+  sweepEvents(id: Key): Observable<SweepEvent> {
+    return new Observable<SweepEvent>((subscriber) => {
+      let read = 0;
+      const take = (text: string) => {
+        const { events, consumed } = parseEventStream(text.slice(read));
+        read += consumed;
+        for (const e of events) subscriber.next(JSON.parse(e.data) as SweepEvent);
+      };
+      const sub = this.http.get(`/api/sweeps/${id}/events`, { observe: 'events', reportProgress: true, responseType: 'text' }).subscribe({
+        next: (event) => {
+          if (event.type === HttpEventType.DownloadProgress) take(event.partialText ?? '');
+          else if (event.type === HttpEventType.Response) take(event.body ?? '');
+        },
+        error: (err: unknown) => subscriber.error(err),
+        complete: () => subscriber.complete(),
+      });
+      return () => sub.unsubscribe();
+    });
   }
 
   // ---- library and activity

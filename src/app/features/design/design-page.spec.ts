@@ -2,6 +2,7 @@
 jest.mock('../sketch/sketch-editor', () => jest.requireActual('./testing/tab-stubs'));
 jest.mock('../conditions/conditions-panel', () => jest.requireActual('./testing/tab-stubs'));
 jest.mock('../fields/fields-view', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../sweeps/sweeps-tab', () => jest.requireActual('./testing/tab-stubs'));
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
@@ -64,11 +65,11 @@ describe('DesignPage', () => {
     jest.useRealTimers();
   });
 
-  it('shows the design with its review state and the Sketch, Conditions, Fields and History tabs', async () => {
+  it('shows the design with its review state and the Sketch, Conditions, Fields, Sweeps and History tabs', async () => {
     await open();
     expect(el.querySelector('[data-testid=design-name]')?.textContent).toContain('Cross injector');
     expect(el.querySelector('[data-testid=review-chip]')?.textContent).toContain('draft');
-    expect(Array.from(el.querySelectorAll('[role=tab]')).map((t) => t.textContent?.trim())).toEqual(['Sketch', 'Conditions', 'Fields', 'History']);
+    expect(Array.from(el.querySelectorAll('[role=tab]')).map((t) => t.textContent?.trim())).toEqual(['Sketch', 'Conditions', 'Fields', 'Sweeps', 'History']);
     expect(el.querySelector('osm-sketch-editor')?.textContent).toContain('editable');
     expect(el.querySelector('[data-testid=save-revision]')).not.toBeNull();
     expect(el.querySelector('[data-testid=save-state]')?.textContent).toContain('All changes saved');

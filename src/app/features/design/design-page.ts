@@ -21,15 +21,15 @@ import { ConfirmDialog, type ConfirmData } from '../../ui/confirm-dialog';
 import { ReviewChip } from '../../ui/review-chip';
 import { ConditionsPanel } from '../conditions/conditions-panel';
 import { FieldsView } from '../fields/fields-view';
-import { ExportMenu } from '../files/export-menu';
 import { HistoryTab } from '../history/history-tab';
 import { SketchEditor } from '../sketch/sketch-editor';
+import { SweepsTab } from '../sweeps/sweeps-tab';
 import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
 import { sameDocument } from './same-document';
 import { SaveRevisionDialog, type SaveRevisionData } from './save-revision-dialog';
 
 /** Tabs of the design page, in order, as `?tab=` names them (later issues add Compare, Tracer, Planner, ...). */
-export const DESIGN_TABS = ['sketch', 'conditions', 'fields', 'history'] as const;
+export const DESIGN_TABS = ['sketch', 'conditions', 'fields', 'sweeps', 'history'] as const;
 export type DesignTab = (typeof DESIGN_TABS)[number];
 
 /** Quiet time after the last edit before the draft is saved. */
@@ -40,7 +40,7 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'conflict' | 'failed';
 /**
  * The design page (/designs/:id): loads the design, holds the working document, autosaves the draft with the
  * optimistic version (a conflict always asks), saves revisions, moves the review state as the role allows, and
- * hosts the Sketch, Conditions, Fields and History tabs. Viewers and reviewers see the document read-only.
+ * hosts the Sketch, Conditions, Fields, Sweeps and History tabs. Viewers and reviewers see the document read-only.
  */
 @Component({
   selector: 'osm-design-page',
@@ -56,8 +56,8 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'conflict' | 'failed';
     SketchEditor,
     ConditionsPanel,
     FieldsView,
+    SweepsTab,
     HistoryTab,
-    ExportMenu,
   ],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',

@@ -3,7 +3,7 @@ import type { DesignDocument } from '../../../../../shared/design';
 
 /**
  * Stand-ins for the design page's tab contents in unit tests: the same selectors, inputs and outputs as the
- * real Sketch, Conditions and Fields components, and nothing else.
+ * real Sketch, Conditions, Fields and Sweeps components, and nothing else.
  */
 @Component({ selector: 'osm-sketch-editor', template: '<p>{{ readOnly() ? "read-only" : "editable" }}</p>' })
 export class SketchEditor {
@@ -27,4 +27,11 @@ export class FieldsView {
   readonly runId = input<string | number | null>(null);
   readonly solveRequest = input(0);
   readonly runSaved = output<void>();
+}
+
+@Component({ selector: 'osm-sweeps-tab', template: '<p>sweeps of design {{ designId() }}</p>' })
+export class SweepsTab {
+  readonly designId = input.required<string | number>();
+  readonly role = input<string | null>(null);
+  readonly refresh = input(0);
 }
