@@ -1,7 +1,7 @@
 import { HttpClient, HttpContext, HttpContextToken, HttpEventType, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { HealthResponse, RevisionCreated, RunCreated, SweepDetail, SweepEvent, SweepRequest, SweepSummary } from '../../../shared/api';
+import type { DesignFileInfo, HealthResponse, ImportCreated, ImportPreview, MapQuantityName, RevisionCreated, RunCreated, RunExportFormat, SweepDetail, SweepEvent, SweepRequest, SweepSummary } from '../../../shared/api';
 import type {
   ActivityItem,
   Comment,
@@ -48,6 +48,14 @@ function pageParams(query: PageQuery & Record<string, string | number | undefine
     if (value !== undefined && value !== '') params = params.set(key, String(value));
   }
   return params;
+}
+
+/** The multipart form of a drawing upload (the server reads `file`, `scale`, `name`, `preview`). */
+function importForm(file: File, fields: { scale?: number; name?: string; preview?: string }): FormData {
+  const form = new FormData();
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== '') form.append(k, String(v));
+  form.append('file', file, file.name);
+  return form;
 }
 
 /** The one client of the Osmolane HTTP API (see shared/api.md and the API plan). Every call is an Observable. */
@@ -166,6 +174,28 @@ export class Api {
   }
   runFields(id: Key): Observable<ArrayBuffer> {
     return this.http.get(`/api/runs/${id}/fields`, { responseType: 'arraybuffer' });
+  }
+  // ---- files: drawings in, outlines, run exports and reports out
+  previewImport(wid: Key, file: File, scale?: number): Observable<ImportPreview> {
+    return this.http.post<ImportPreview>(`/api/workspaces/${wid}/designs/import`, importForm(file, { scale, preview: '1' }));
+  }
+  importDesign(wid: Key, file: File, scale?: number, name?: string): Observable<ImportCreated> {
+    return this.http.post<ImportCreated>(`/api/workspaces/${wid}/designs/import`, importForm(file, { scale, name }));
+  }
+  deleteDesign(id: Key): Observable<void> {
+    return this.http.delete<void>(`/api/designs/${id}`);
+  }
+  designFiles(designId: Key): Observable<DesignFileInfo[]> {
+    return this.http.get<DesignFileInfo[]>(`/api/designs/${designId}/files`);
+  }
+  outlineFile(designId: Key, format: 'svg' | 'dxf'): Observable<Blob> {
+    return this.http.get(`/api/designs/${designId}/outline`, { params: { format }, responseType: 'blob' });
+  }
+  runExport(runId: Key, format: RunExportFormat, quantity: MapQuantityName = 'potential'): Observable<Blob> {
+    return this.http.get(`/api/runs/${runId}/export`, { params: { format, quantity }, responseType: 'blob' });
+  }
+  runReport(runId: Key): Observable<Blob> {
+    return this.http.get(`/api/runs/${runId}/report.pdf`, { responseType: 'blob' });
   }
   comments(revisionId: Key): Observable<Comment[]> {
     return this.http.get<Comment[]>(`/api/revisions/${revisionId}/comments`);

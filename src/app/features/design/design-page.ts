@@ -21,6 +21,7 @@ import { ConfirmDialog, type ConfirmData } from '../../ui/confirm-dialog';
 import { ReviewChip } from '../../ui/review-chip';
 import { ConditionsPanel } from '../conditions/conditions-panel';
 import { FieldsView } from '../fields/fields-view';
+import { ExportMenu } from '../files/export-menu';
 import { HistoryTab } from '../history/history-tab';
 import { SketchEditor } from '../sketch/sketch-editor';
 import { SweepsTab } from '../sweeps/sweeps-tab';
@@ -58,6 +59,7 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'conflict' | 'failed';
     FieldsView,
     SweepsTab,
     HistoryTab,
+    ExportMenu,
   ],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',
