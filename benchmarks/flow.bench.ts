@@ -88,9 +88,15 @@ function measure(cells: number): Row {
     imbalance = r.solution.massImbalance;
     runs++;
   }
-  // Memory: ArrayBuffer growth while solving, sampled every iteration.
-  gc();
-  const base = process.memoryUsage().arrayBuffers;
+  // Memory: ArrayBuffer growth while solving, sampled every iteration. Backing stores of collected buffers are
+  // released lazily, so collect until the count settles.
+  let base = Infinity;
+  for (let k = 0; k < 10; k++) {
+    gc();
+    const now = process.memoryUsage().arrayBuffers;
+    if (now >= base) break;
+    base = now;
+  }
   let peak = base;
   const sample = () => { peak = Math.max(peak, process.memoryUsage().arrayBuffers); };
   const { solution } = timedSolve(problem, sample);
