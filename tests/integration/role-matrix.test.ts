@@ -22,6 +22,8 @@ interface Request {
   /** Defaults to the actor's token; null sends none. */
   token?: string | null;
   cookie?: string;
+  /** A multipart form (uploads), made fresh for each request. */
+  form?: FormData;
 }
 
 interface Row {
@@ -46,6 +48,15 @@ let revisionId: number;
 let runId: number;
 let libraryId: number;
 let builtInId: number;
+let fileId: number;
+
+/** A small drawing to upload (a 1 mm channel with two ports, in um). */
+function drawing(): FormData {
+  const f = new FormData();
+  const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="1mm" height="0.05mm" viewBox="0 -50 1000 50"><rect x="0" y="-50" width="1000" height="50"/></svg>';
+  f.append('file', new Blob([svg]), 'matrix.svg');
+  return f;
+}
 let sweepId: number;
 
 const owner = () => team.owner.token;
@@ -211,6 +222,19 @@ const ROWS: Row[] = [
     route: 'POST /api/sweeps/:id/points/:index/run', who: EDITORS, ok: 201,
     make: async () => ({ method: 'POST', path: `/api/sweeps/${await freshSweep()}/points/0/run` }),
   },
+  { route: 'POST /api/workspaces/:wid/designs/import', who: EDITORS, ok: 201, make: async () => ({ method: 'POST', path: `/api/workspaces/${team.wid}/designs/import`, form: drawing() }) },
+  {
+    route: 'DELETE /api/designs/:id', who: EDITORS, ok: 204,
+    make: async () => {
+      const r = await call(t.base, 'POST', `/api/workspaces/${team.wid}/designs`, { token: owner(), body: { name: 'Doomed', document: validDocument() } });
+      return { method: 'DELETE', path: `/api/designs/${r.body.id}` };
+    },
+  },
+  { route: 'GET /api/designs/:id/files', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/designs/${designId}/files` }) },
+  { route: 'GET /api/files/:id', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/files/${fileId}` }) },
+  { route: 'GET /api/designs/:id/outline', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/designs/${designId}/outline?format=svg` }) },
+  { route: 'GET /api/runs/:id/export', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/runs/${runId}/export?format=csv` }) },
+  { route: 'GET /api/runs/:id/report.pdf', who: ALL, ok: 200, make: async () => ({ method: 'GET', path: `/api/runs/${runId}/report.pdf` }) },
   { route: 'GET /api/dev/mailbox', who: 'public', ok: 200, make: async () => ({ method: 'GET', path: '/api/dev/mailbox', token: null }) },
   { route: 'GET /api/dev/mailbox/:id', who: 'public', ok: 200, make: async () => ({ method: 'GET', path: `/api/dev/mailbox/${t.mail.mailbox.list()[0]!.id}`, token: null }) },
 ];
@@ -230,10 +254,12 @@ beforeAll(async () => {
   designId = await made('Matrix target');
   reviewDesignId = await made('Review target');
   revisionId = (await call(t.base, 'POST', `/api/designs/${designId}/revisions`, { token: owner(), body: { note: 'fixture' } })).body.id;
-  runId = (await call(t.base, 'POST', `/api/revisions/${revisionId}/runs`, { token: owner(), body: { settings: {}, summary: {}, fields: 'AAEC' } })).body.id;
+  runId = (await call(t.base, 'POST', `/api/revisions/${revisionId}/runs`, { token: owner(), body: { settings: { cells: 80 }, summary: {}, fields: 'AAEC' } })).body.id;
   libraryId = await freshLibraryItem();
   const library = await call(t.base, 'GET', `/api/workspaces/${team.wid}/library`, { token: owner() });
   builtInId = library.body.find((i: { builtIn: boolean }) => i.builtIn).id;
+  const imported = await call(t.base, 'POST', `/api/workspaces/${team.wid}/designs/import`, { token: owner(), form: drawing() });
+  fileId = (await call(t.base, 'GET', `/api/designs/${imported.body.design.id}/files`, { token: owner() })).body[0].id;
   sweepId = await freshSweep();
 });
 
@@ -257,7 +283,7 @@ it.each(cases.map((c) => [`${c.row.route}${c.row.variant ? ` (${c.row.variant})`
   async (_route, actor, status, c) => {
     const me = actor === 'outsider' ? team.outsider : team[actor];
     const req = await c.row.make(actor, me);
-    const r = await call(t.base, req.method, req.path, { token: req.token === undefined ? me.token : req.token, body: req.body, cookie: req.cookie });
+    const r = await call(t.base, req.method, req.path, { token: req.token === undefined ? me.token : req.token, body: req.body, cookie: req.cookie, form: req.form });
     if (r.status !== status) throw new Error(`${req.method} ${req.path} as ${actor}: expected ${status}, got ${r.status} ${JSON.stringify(r.body)}`);
     if (status >= 400) expect(r.body).toEqual({ error: { code: expect.any(String), message: expect.any(String) } });
   },
@@ -267,7 +293,7 @@ it.each(ROWS.filter((r) => r.who !== 'public').map((r) => [r.route + (r.variant 
   '%s answers 401 without a token',
   async (_route, row) => {
     const req = await row.make('owner', team.owner);
-    const r = await call(t.base, req.method, req.path, { token: null, body: req.body });
+    const r = await call(t.base, req.method, req.path, { token: null, body: req.body, form: req.form });
     expect(r.status).toBe(401);
     expect(r.body.error.code).toBe('not-signed-in');
   },
