@@ -65,7 +65,7 @@ export function svgUnits(width: string | null, height: string | null, viewBox: s
     const sy = h ? h.metres / vb[3] : null;
     const s = sx ?? sy!;
     const note = sx !== null && sy !== null && Math.abs(sx - sy) > 1e-6 * s ? ' (height gives another scale; the width was used)' : '';
-    return { metresPerUnit: s, source: `from the document: ${width ?? height} over a viewBox ${vb[2]} units wide, ${s.toPrecision(6)} m per unit${note}` };
+    return { metresPerUnit: s, source: `from the document: ${width ?? height} over a viewBox ${vb[2]} units wide, ${Number(s.toPrecision(6))} m per unit${note}` };
   }
   return { metresPerUnit: PX, source: 'the document states no absolute size: 1 unit = 1 CSS px (1/96 in); type a scale if that is wrong' };
 }
