@@ -4,6 +4,7 @@
  *   npm run -s osmolane -- solve DESIGN.json [--cells N] [--probe X,Y]... [--json] [--vtk OUT.vtk] [--csv OUT.csv]
  *   npm run -s osmolane -- export DESIGN.json --format svg|dxf --out FILE
  *   npm run -s osmolane -- import FILE.svg|FILE.dxf [--scale METRES_PER_UNIT] --out DESIGN.json
+ *   npm run -s osmolane -- compare|trace|plan|edl ... (see USAGE in command-line/args.ts)
  *
  * Exit 0 on success; 2 with one `error:` line on stderr for an invalid design or argument;
  * 1 with one `error:` line for an internal failure. Never a stack trace.
@@ -12,7 +13,10 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { parseArgs, UsageError, USAGE } from './command-line/args';
 import { formatSummary } from './command-line/summary';
-import { parseDesign } from '../shared/design';
+import { runCompare, runEdl, runPlan, runTraceCommand, type AnalysisOutput } from './command-line/analysis';
+import type { AnalysisCommand } from './command-line/analysis-args';
+import { PlanError } from './planner';
+import { parseDesign, type DesignDocument } from '../shared/design';
 import { asSolveError, invalidDesign } from './result/errors';
 import { resultJson } from './result/types';
 import { fieldsToVtk } from './result/vtk';
@@ -42,7 +46,11 @@ function main(argv: string[]): void {
     process.stdout.write(`${USAGE}\n`);
     return;
   }
-  const text = read(command.file);
+  if (command.command === 'edl' && command.file === undefined) {
+    analysis(command, null);
+    return;
+  }
+  const text = read(command.file!);
   if (command.command === 'import') {
     let imported;
     try {
@@ -73,6 +81,10 @@ function main(argv: string[]): void {
     process.stdout.write(`wrote ${command.out} (${command.format === 'svg' ? 'SVG, 1 unit = 1 um' : 'DXF, $INSUNITS micrometres'})\n`);
     return;
   }
+  if (command.command !== 'solve') {
+    analysis(command, parsed.design);
+    return;
+  }
 
   let result;
   try {
@@ -90,6 +102,25 @@ function main(argv: string[]): void {
   }
   if (command.csv !== undefined) write(command.csv, resultsCsv({ name: parsed.design.name, ports: result.ports, probes: result.probes }));
   process.stdout.write(command.json ? `${JSON.stringify(resultJson(result), null, 2)}\n` : formatSummary(parsed.design, result));
+}
+
+/** compare, trace, plan, edl: JSON or text on stdout; refusals exit 2, naming the design file. */
+function analysis(command: AnalysisCommand, design: DesignDocument | null): void {
+  let output: AnalysisOutput;
+  try {
+    if (command.command === 'edl') output = runEdl(design, command);
+    else if (!design) throw new Exit(2, 'no design file given');
+    else if (command.command === 'compare') output = runCompare(design, command);
+    else if (command.command === 'trace') output = runTraceCommand(design, command);
+    else output = runPlan(design, command);
+  } catch (error) {
+    if (error instanceof Exit) throw error;
+    const where = command.file ? `${command.file}: ` : '';
+    if (error instanceof PlanError) throw new Exit(2, `${where}${error.message}`);
+    const e = asSolveError(error);
+    throw new Exit(e.kind === 'internal' ? 1 : 2, e.kind === 'internal' ? e.message : `${where}${e.message}`);
+  }
+  process.stdout.write(command.json ? `${JSON.stringify(output.json, null, 2)}\n` : output.text);
 }
 
 function read(file: string): string {

@@ -3,14 +3,33 @@
  *   solve DESIGN.json [--cells N] [--probe X,Y]... [--json] [--vtk OUT.vtk] [--csv OUT.csv]
  *   export DESIGN.json --format svg|dxf --out FILE
  *   import FILE [--scale METRES_PER_UNIT] --out DESIGN.json
+ *   compare, trace, plan, edl (analysis-args.ts)
  * Pure parsing, no Node imports; every mistake is a UsageError whose message names it.
  */
 import type { Point } from '../../shared/design';
+import { ANALYSIS_COMMANDS, parseAnalysisArgs, type AnalysisCommand } from './analysis-args';
+import { UsageError } from './usage-error';
+
+export { UsageError } from './usage-error';
+export type { AnalysisCommand, CompareCommand, EdlCommand, PlanCommand, TraceCommand } from './analysis-args';
 
 export const USAGE = [
   'usage: osmolane solve DESIGN.json [--cells N] [--probe X,Y]... [--json] [--vtk OUT.vtk] [--csv OUT.csv]',
   '       osmolane export DESIGN.json --format svg|dxf --out FILE',
   '       osmolane import FILE.svg|FILE.dxf [--scale METRES_PER_UNIT] --out DESIGN.json',
+  '       osmolane compare DESIGN.json --port ID [--cells N] [--diffusivity D] [--json]',
+  '       osmolane trace DESIGN.json --species MOBILITY,DIFFUSIVITY (--from X1,Y1,X2,Y2 | --region X1,Y1,X2,Y2,X3,Y3,... | --pinched)',
+  '                [--detector X1,Y1,X2,Y2] [--phase DURATION|auto:PORT=V,...]... [--duration T] [--particles N] [--seed S] [--cells N] [--json]',
+  '       osmolane plan DESIGN.json --target KIND:PORT:VALUE[:OF]... [--hold PORT=V]... [--float PORT]... [--bounds PORT=MIN:MAX]... [--cells N] [--json]',
+  '       osmolane edl [DESIGN.json] --ionic-strength MOL_PER_M3 --zeta V --temperature K [--depth M] [--width M]',
+  '                [--permittivity R] [--viscosity PA_S] [--valence Z] [--field V_PER_M] [--json]',
+  '',
+  'SI units throughout (m, V, s, Pa). compare: the same layout by slip and by pressure at the flow rate of --port.',
+  'trace: a band of a species (mobility m²/Vs, diffusivity m²/s) from a line or region to a detector line; --pinched',
+  '  sets up a pinched plug at a cross (ports S, SW, B, W): loading, then dispensing, overridden by --phase.',
+  'plan: reservoir potentials for targets; KIND is flow (m³/s), speed (m/s) or current (A) into the fluid through',
+  '  PORT, or ratio (Q_PORT = VALUE x Q_OF); --hold fixes a potential, --float leaves a port without an electrode.',
+  'edl: the double layer for a buffer and wall; a DESIGN.json gives the buffer, side zeta, depth and narrowest width.',
 ].join('\n');
 
 export interface SolveCommand {
@@ -37,14 +56,7 @@ export interface ImportCommand {
   out: string;
 }
 
-export type Command = SolveCommand | ExportCommand | ImportCommand | { command: 'help' };
-
-export class UsageError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'UsageError';
-  }
-}
+export type Command = SolveCommand | ExportCommand | ImportCommand | AnalysisCommand | { command: 'help' };
 
 /** A finite decimal number written in full ("1e-3", "-2.5"); Number() alone would accept "" and " ". */
 function parseNumber(text: string): number | null {
@@ -58,6 +70,14 @@ export function parseArgs(argv: ReadonlyArray<string>): Command {
   if (argv.includes('--help') || argv.includes('-h')) return { command: 'help' };
   const [command, ...rest] = argv;
   if (command === 'export' || command === 'import') return parseFilesCommand(command, rest);
+  if ((ANALYSIS_COMMANDS as readonly string[]).includes(command)) {
+    try {
+      return parseAnalysisArgs(command as AnalysisCommand['command'], rest);
+    } catch (error) {
+      if (error instanceof UsageError && /^unknown option|^no design file/.test(error.message)) throw new UsageError(`${error.message}; ${USAGE.split('\n').find((l) => l.includes(`osmolane ${command} `))?.trim()}`);
+      throw error;
+    }
+  }
   if (command !== 'solve') throw new UsageError(`unknown command "${command}"; ${USAGE}`);
   const out: SolveCommand = { command: 'solve', file: '', probes: [], json: false };
   const files: string[] = [];
