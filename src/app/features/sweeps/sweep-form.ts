@@ -14,15 +14,7 @@ import type { RevisionSummary } from '../../core/api-types';
 import { errorMessage } from '../../core/error-message';
 import { describeDimension } from '../../ui/units';
 import { buildRequest, defaultParameter, dimensionOf, type ParameterForm, type RangeKind } from './sweep-request';
-
-export const OUTPUT_LABELS: Record<SweepOutput, string> = {
-  portCurrents: 'Port currents',
-  portFlowRates: 'Port flow rates',
-  maxField: 'Largest field strength',
-  maxVorticity: 'Largest vorticity',
-  joulePower: 'Joule power',
-  warnings: 'Warnings',
-};
+import { OUTPUT_LABELS } from './sweep-series';
 
 /**
  * Defines a sweep: a revision, one or two of its document's numeric fields (listed with readable labels), a range

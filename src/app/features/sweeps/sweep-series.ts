@@ -23,7 +23,8 @@ function series(sweep: SweepDetail, key: string, label: string, group: string, d
   return { key, label, group, dimension, signed, values: sweep.points.map((p) => (p.result ? pick(p.result) : NaN)) };
 }
 
-const GROUPS: Record<SweepOutput, string> = {
+/** The outputs in words: the form's check boxes and the plots' headings. */
+export const OUTPUT_LABELS: Record<SweepOutput, string> = {
   portCurrents: 'Port currents',
   portFlowRates: 'Port flow rates',
   maxField: 'Largest field strength',
@@ -42,7 +43,7 @@ export function sweepSeries(sweep: SweepDetail): Series[] {
   const ports = portIds(sweep);
   const port = (r: SweepPointResult, id: string) => r.ports.find((p) => p.id === id);
   for (const output of sweep.outputs) {
-    const group = GROUPS[output];
+    const group = OUTPUT_LABELS[output];
     switch (output) {
       case 'portCurrents':
         for (const id of ports) out.push(series(sweep, `current:${id}`, `Current at ${id}`, group, 'current', true, (r) => port(r, id)?.current ?? NaN));
