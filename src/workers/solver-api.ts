@@ -1,4 +1,7 @@
+import type { Comparison } from '../../solver/compare';
+import type { UnitResponses } from '../../solver/planner';
 import type { SolveProgress, SolveResult } from '../../solver/solve';
+import type { TraceRequest, TraceRun } from '../../solver/tracer';
 
 /** What the worker measures of a layout before solving: enough to show cells across the narrowest channel. */
 export interface LayoutMeasure {
@@ -44,4 +47,33 @@ export interface SolverApi {
   measure(design: unknown): Promise<LayoutMeasure>;
   /** Solves; progress goes to the (comlink-proxied) callback, a few times a second at most. */
   solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome>;
+}
+
+/** Progress of an analysis (several solves, then maybe a trace): what is running and how far overall, in [0, 1]. */
+export interface AnalysisProgress {
+  label: string;
+  fraction: number;
+}
+
+export interface WorkerCompareOptions {
+  /** The port whose flow rate the slip and the pressure cases share. */
+  port: string;
+  cells?: number;
+  referenceDiffusivity?: number;
+}
+
+/** A trace request without its callbacks (they cannot cross to the worker). */
+export type WorkerTraceRequest = Omit<TraceRequest, 'shouldStop' | 'onProgress'>;
+
+export type AnalysisOutcome<T> = ({ ok: true; workerMs: number } & T) | { ok: false; error: SolveFailure };
+export type CompareOutcome = AnalysisOutcome<{ comparison: Comparison }>;
+export type ResponsesOutcome = AnalysisOutcome<{ responses: UnitResponses }>;
+export type TraceOutcome = AnalysisOutcome<{ run: TraceRun }>;
+
+/** The solver worker's analyses (Compare, Planner, Tracer): results come back with their typed arrays transferred. */
+export interface AnalysisApi {
+  compare(design: unknown, options: WorkerCompareOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<CompareOutcome>;
+  /** The chip's response to each electrode at 1 V (the planner's basis); fields included, for instant sliders. */
+  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<ResponsesOutcome>;
+  trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome>;
 }

@@ -1,7 +1,8 @@
 /// <reference lib="webworker" />
 import { expose, releaseProxy, transfer, type Remote } from 'comlink';
 import type { SolveProgress } from '../../solver/solve';
-import type { LayoutMeasure, SolverApi } from './solver-api';
+import type { AnalysisApi, AnalysisProgress, LayoutMeasure, SolverApi } from './solver-api';
+import { compareOutcome, comparisonBuffers, responsesBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
 import { measureLayout, resultBuffers, solveOutcome, throttledProgress } from './worker-solve';
 
 /**
@@ -18,7 +19,23 @@ function measureOf(design: unknown): LayoutMeasure {
   return measured.measure;
 }
 
-const api: SolverApi = {
+/** A proxied progress callback as a throttled local one (each call is a message to the page), and its release. */
+function analysisReporter(onProgress?: (p: AnalysisProgress) => void): [((p: AnalysisProgress) => void) | undefined, () => void] {
+  const remote = onProgress as Remote<(p: AnalysisProgress) => void> | undefined;
+  if (!remote) return [undefined, () => undefined];
+  let last = -Infinity;
+  let label = '';
+  const report = (p: AnalysisProgress) => {
+    const t = performance.now();
+    if (p.label === label && p.fraction < 1 && t - last < 80) return;
+    last = t;
+    label = p.label;
+    void Promise.resolve(remote(p)).catch(() => undefined);
+  };
+  return [report, () => remote[releaseProxy]()];
+}
+
+const api: SolverApi & AnalysisApi = {
   async hello() {
     return { ready: true, at: Date.now() };
   },
@@ -33,6 +50,33 @@ const api: SolverApi = {
       return outcome.ok ? transfer(outcome, resultBuffers(outcome.result)) : outcome;
     } finally {
       remote?.[releaseProxy]();
+    }
+  },
+  async compare(design, options, onProgress) {
+    const [report, release] = analysisReporter(onProgress);
+    try {
+      const outcome = compareOutcome(design, options, report);
+      return outcome.ok ? transfer(outcome, comparisonBuffers(outcome.comparison)) : outcome;
+    } finally {
+      release();
+    }
+  },
+  async unitResponses(design, options, onProgress) {
+    const [report, release] = analysisReporter(onProgress);
+    try {
+      const outcome = responsesOutcome(design, options, report);
+      return outcome.ok ? transfer(outcome, responsesBuffers(outcome.responses)) : outcome;
+    } finally {
+      release();
+    }
+  },
+  async trace(design, request, onProgress) {
+    const [report, release] = analysisReporter(onProgress);
+    try {
+      const outcome = traceOutcome(design, request, report);
+      return outcome.ok ? transfer(outcome, traceBuffers(outcome.run)) : outcome;
+    } finally {
+      release();
     }
   },
 };

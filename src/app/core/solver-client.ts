@@ -1,9 +1,33 @@
-import { InjectionToken } from '@angular/core';
+import { InjectionToken, inject } from '@angular/core';
 import { proxy, wrap, type Remote } from 'comlink';
 import type { SolveProgress } from '../../../solver/solve';
-import type { LayoutMeasure, SolveOutcome, SolverApi, WorkerSolveOptions } from '../../workers/solver-api';
+import type {
+  AnalysisApi,
+  AnalysisProgress,
+  CompareOutcome,
+  LayoutMeasure,
+  ResponsesOutcome,
+  SolveFailure,
+  SolveOutcome,
+  SolverApi,
+  TraceOutcome,
+  WorkerCompareOptions,
+  WorkerSolveOptions,
+  WorkerTraceRequest,
+} from '../../workers/solver-api';
 
-export type { LayoutMeasure, SolveFailure, SolveOutcome, WorkerSolveOptions } from '../../workers/solver-api';
+export type {
+  AnalysisProgress,
+  CompareOutcome,
+  LayoutMeasure,
+  ResponsesOutcome,
+  SolveFailure,
+  SolveOutcome,
+  TraceOutcome,
+  WorkerCompareOptions,
+  WorkerSolveOptions,
+  WorkerTraceRequest,
+} from '../../workers/solver-api';
 export type { SolveProgress } from '../../../solver/solve';
 
 /**
@@ -21,16 +45,34 @@ export interface SolverClient {
 
 export const SOLVER = new InjectionToken<SolverClient>('Osmolane solver worker');
 
-export const CANCELLED: SolveOutcome = { ok: false, error: { code: 'cancelled', message: 'The solve was stopped.' } };
+/**
+ * The analyses of the Compare, Planner and Tracer tabs, in the same worker as the solves (one at a time: starting
+ * one stops whatever was running). `cancel()` stops it. Tests provide a fake with useValue.
+ */
+export interface AnalysisClient {
+  compare(design: unknown, options: WorkerCompareOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<CompareOutcome>;
+  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<ResponsesOutcome>;
+  trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome>;
+  cancel(): void;
+}
+
+/** By default the app's SOLVER, which runs the analyses too. */
+export const ANALYSIS = new InjectionToken<AnalysisClient>('Osmolane analyses in the solver worker', {
+  providedIn: 'root',
+  factory: () => inject(SOLVER) as unknown as AnalysisClient,
+});
+
+const CANCELLED_ERROR: SolveFailure = { code: 'cancelled', message: 'The solve was stopped.' };
+export const CANCELLED: SolveOutcome = { ok: false, error: CANCELLED_ERROR };
 
 /** One started worker: its comlink handle, and a promise that rejects when it ends or fails. */
 class WorkerHandle {
-  readonly remote: Remote<SolverApi>;
+  readonly remote: Remote<SolverApi & AnalysisApi>;
   readonly ended: Promise<never>;
   private end!: (reason: Error) => void;
 
   constructor(private readonly worker: Worker) {
-    this.remote = wrap<SolverApi>(worker);
+    this.remote = wrap<SolverApi & AnalysisApi>(worker);
     this.ended = new Promise<never>((_, reject) => (this.end = reject));
     this.ended.catch(() => undefined);
     worker.addEventListener('error', (event) => {
@@ -40,7 +82,7 @@ class WorkerHandle {
   }
 
   /** Calls into the worker, giving up when the worker ends first. */
-  call<T>(work: (remote: Remote<SolverApi>) => Promise<T>): Promise<T> {
+  call<T>(work: (remote: Remote<SolverApi & AnalysisApi>) => Promise<T>): Promise<T> {
     return Promise.race([work(this.remote), this.ended]);
   }
 
@@ -52,8 +94,8 @@ class WorkerHandle {
 
 class WorkerEnded extends Error {}
 
-/** The SolverClient over a real worker, started on first use and again after a cancel. */
-export class WorkerSolverClient implements SolverClient {
+/** The SolverClient (and AnalysisClient) over a real worker, started on first use and again after a cancel. */
+export class WorkerSolverClient implements SolverClient, AnalysisClient {
   private handle: WorkerHandle | null = null;
   private solving: WorkerHandle | null = null;
 
@@ -72,14 +114,31 @@ export class WorkerSolverClient implements SolverClient {
     return this.current().call((r) => r.measure(design));
   }
 
-  async solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome> {
+  solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome> {
+    return this.exclusive((r) => r.solve(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<SolveOutcome>);
+  }
+
+  compare(design: unknown, options: WorkerCompareOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<CompareOutcome> {
+    return this.exclusive((r) => r.compare(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<CompareOutcome>);
+  }
+
+  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<ResponsesOutcome> {
+    return this.exclusive((r) => r.unitResponses(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<ResponsesOutcome>);
+  }
+
+  trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome> {
+    return this.exclusive((r) => r.trace(design, request, onProgress ? proxy(onProgress) : undefined) as Promise<TraceOutcome>);
+  }
+
+  /** One long call at a time: a new one stops the one in flight; a stopped call resolves as cancelled. */
+  private async exclusive<T>(work: (remote: Remote<SolverApi & AnalysisApi>) => Promise<T>): Promise<T | { ok: false; error: SolveFailure }> {
     if (this.solving) this.cancel();
     const handle = this.current();
     this.solving = handle;
     try {
-      return await handle.call((r) => r.solve(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<SolveOutcome>);
+      return await handle.call(work);
     } catch (error) {
-      if (error instanceof WorkerEnded) return CANCELLED;
+      if (error instanceof WorkerEnded) return { ok: false, error: { ...CANCELLED_ERROR } };
       return { ok: false, error: { code: 'internal', message: error instanceof Error ? error.message : String(error) } };
     } finally {
       if (this.solving === handle) this.solving = null;

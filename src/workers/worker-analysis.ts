@@ -1,0 +1,102 @@
+/**
+ * The worker's analyses as plain functions (no worker globals), so specs can run them in Node: Compare, the
+ * planner's unit responses and the tracer, each into an outcome that never throws, plus the buffers to transfer.
+ */
+import { parseDesign } from '../../shared/design';
+import { compareDrives, type Comparison } from '../../solver/compare';
+import { unitResponses, type UnitResponses } from '../../solver/planner';
+import { SolveError, type SolveProgress } from '../../solver/solve';
+import { runTrace, type TraceRun } from '../../solver/tracer';
+import type { AnalysisOutcome, AnalysisProgress, CompareOutcome, ResponsesOutcome, TraceOutcome, WorkerCompareOptions, WorkerSolveOptions, WorkerTraceRequest } from './solver-api';
+import { resultBuffers } from './worker-solve';
+
+type Report = (progress: AnalysisProgress) => void;
+
+/** Runs the work and times it; a SolveError (or any failure) becomes { ok: false, error }. */
+function outcome<T extends object>(work: () => T): AnalysisOutcome<T> {
+  const started = performance.now();
+  try {
+    const value = work();
+    return { ok: true, workerMs: performance.now() - started, ...value };
+  } catch (error) {
+    if (error instanceof SolveError) return { ok: false, error: error.toJSON() };
+    const message = error instanceof Error ? error.message : String(error);
+    // The planner's and the tracer's refusals are plain errors with a code; anything else is internal.
+    const code = (error as { code?: unknown }).code;
+    return { ok: false, error: { code: typeof code === 'string' ? code : 'internal', message } };
+  }
+}
+
+/**
+ * Progress over `count` solves in a row: each solve reports its stages from geometry to fields; a new
+ * geometry stage after the first means the next solve began.
+ */
+export function solvesProgress(report: Report | undefined, labels: string[], share = 1): (p: SolveProgress) => void {
+  let index = 0;
+  let seenFields = false;
+  const weights: Record<SolveProgress['stage'], [number, number]> = { geometry: [0, 0.05], potential: [0.05, 0.3], flow: [0.3, 0.95], fields: [0.95, 1] };
+  return (p) => {
+    if (p.stage === 'geometry' && seenFields) {
+      index = Math.min(labels.length - 1, index + 1);
+      seenFields = false;
+    }
+    if (p.stage === 'fields') seenFields = true;
+    const [a, b] = weights[p.stage];
+    const within = a + (b - a) * p.fraction;
+    report?.({ label: labels[index], fraction: (share * (index + within)) / labels.length });
+  };
+}
+
+export function compareOutcome(design: unknown, options: WorkerCompareOptions, report?: Report): CompareOutcome {
+  return outcome(() => ({
+    comparison: compareDrives(design, options.port, {
+      cells: options.cells,
+      referenceDiffusivity: options.referenceDiffusivity,
+      onProgress: solvesProgress(report, ['slip-driven solve', 'unit-head solve', 'pressure-driven solve']),
+    }),
+  }));
+}
+
+export function responsesOutcome(design: unknown, options: WorkerSolveOptions, report?: Report): ResponsesOutcome {
+  return outcome(() => {
+    const parsed = parseDesign(design);
+    if (!parsed.ok) throw new SolveError('invalid-design', parsed.errors.map((e) => `${e.field}: ${e.message}`).join('; '));
+    const electrodes = parsed.design.ports.filter((p) => p.potential !== null).map((p) => `unit response of ${p.id}`);
+    if (electrodes.length === 0) throw new SolveError('invalid-option', 'no port has an electrode: give at least one port a potential');
+    return { responses: unitResponses(parsed.design, { cells: options.cells, tolerance: options.tolerance, onProgress: solvesProgress(report, electrodes) }) };
+  });
+}
+
+export function traceOutcome(design: unknown, request: WorkerTraceRequest, report?: Report): TraceOutcome {
+  const phases = Math.max(1, request.phases?.length ?? 1);
+  // Solves take about the first half of the bar, the particles the second.
+  return outcome(() => ({
+    run: runTrace(design, {
+      ...request,
+      onProgress: (p) =>
+        report?.(
+          p.stage === 'solve'
+            ? { label: `solving phase ${p.phase + 1} of ${phases}`, fraction: (0.5 * (p.phase + p.fraction)) / phases }
+            : { label: 'following the band', fraction: 0.5 + 0.5 * p.fraction },
+        ),
+    }),
+  }));
+}
+
+/** Distinct buffers of a comparison's two solves. */
+export function comparisonBuffers(c: Comparison): ArrayBuffer[] {
+  return distinct([...resultBuffers(c.slip.result), ...resultBuffers(c.pressure.result)]);
+}
+
+export function responsesBuffers(r: UnitResponses): ArrayBuffer[] {
+  return distinct(r.results.flatMap(resultBuffers));
+}
+
+export function traceBuffers(run: TraceRun): ArrayBuffer[] {
+  const t = run.trace;
+  return distinct([...run.solves.flatMap(resultBuffers), ...t.frames.map((f) => f.positions.buffer), t.arrivals.time.buffer, t.arrivals.along.buffer]);
+}
+
+function distinct(buffers: ArrayBufferLike[]): ArrayBuffer[] {
+  return [...new Set(buffers)].filter((b): b is ArrayBuffer => b instanceof ArrayBuffer && b.byteLength > 0);
+}
