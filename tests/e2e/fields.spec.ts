@@ -25,6 +25,24 @@ async function solve(fields: Locator): Promise<number> {
   return ms;
 }
 
+/**
+ * shot() for a zoomed map: the map's SVG geometry then reaches past its clipped box (and past the window) by
+ * design, so it is left out of the overflow check; everything else is checked as shot() does.
+ */
+async function zoomedShot(page: Page, name: string): Promise<void> {
+  await page.screenshot({ path: `test-results/screens/${name}.png`, fullPage: true });
+  const overflow = await page.evaluate(() => {
+    const width = document.documentElement.clientWidth;
+    const wide = Array.from(document.querySelectorAll<HTMLElement>('main *, mat-toolbar *'))
+      .filter((e) => !e.closest('osm-field-map svg'))
+      .filter((e) => e.getBoundingClientRect().right > width + 1 && getComputedStyle(e).visibility !== 'hidden')
+      .map((e) => e.tagName.toLowerCase());
+    return { scroll: document.documentElement.scrollWidth, width, wide: wide.slice(0, 5) };
+  });
+  expect(overflow.scroll, `${name}: page wider than the window`).toBeLessThanOrEqual(overflow.width);
+  expect(overflow.wide, `${name}: elements reaching past the right edge`).toEqual([]);
+}
+
 async function currents(fields: Locator): Promise<number[]> {
   return (await fields.getByTestId('port-current').evaluateAll((cells) => cells.map((c) => c.getAttribute('data-value')))).map(Number);
 }
@@ -49,6 +67,9 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
   // The waste reservoir at 1.5 kV, typed the way engineers write it.
   await page.getByRole('tab', { name: 'Conditions' }).click();
   const waste = page.getByTestId('potential-W');
+  await expect(waste).toHaveValue(/V$/);
+  // On a fresh database W is at 250 V; a rerun finds the 1.5 kV revision of the last run.
+  const changed = (await waste.inputValue()) !== '1.5 kV';
   await waste.fill('1.5 kV');
   await waste.press('Enter');
   await expect(page.getByTestId('save-state')).toHaveAttribute('data-state', 'saved', { timeout: 15_000 });
@@ -57,9 +78,11 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
   await page.getByRole('tab', { name: 'Fields' }).click();
   const fields = page.locator('osm-fields-view');
   await expect(fields.getByTestId('fields-empty')).toBeVisible();
-  await page.getByTestId('revision-offer').getByRole('button', { name: 'Save revision' }).click();
-  await page.getByTestId('revision-note').fill('Waste at 1.5 kV for a stronger pinch');
-  await page.getByTestId('revision-save').click();
+  if (changed) {
+    await page.getByTestId('revision-offer').getByRole('button', { name: 'Save revision' }).click();
+    await page.getByTestId('revision-note').fill('Waste at 1.5 kV for a stronger pinch');
+    await page.getByTestId('revision-save').click();
+  }
   await expect(page.getByTestId('revision-offer')).toHaveCount(0);
 
   const ms = await solve(fields);
@@ -98,6 +121,15 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
   await expect(fields.getByTestId('colour-bar')).toContainText('1/s');
   await shot(page, 'fields-cross-vorticity');
 
+  // Zoom on the junction with the wheel and read the values there.
+  const junction = await mapPoint(page, 0, 0, box);
+  await page.mouse.move(junction.x, junction.y);
+  for (let k = 0; k < 6; k++) await page.mouse.wheel(0, -300);
+  await page.mouse.move(junction.x + 30, junction.y + 4);
+  await expect(fields.getByTestId('readout')).toContainText('1/s');
+  await zoomedShot(page, 'fields-cross-junction-zoom');
+  await fields.getByRole('button', { name: 'Fit the layout' }).click();
+
   // A cut line across the sample leg (x = 0, from y = 0.5 mm, left to right) gives a profile plot.
   await fields.getByTestId('map-speed').click();
   await fields.getByTestId('draw-cut').click();
@@ -107,7 +139,7 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
   await page.mouse.down();
   await page.mouse.move(b.x, b.y, { steps: 5 });
   await page.mouse.up();
-  await expect(fields.getByTestId('cut-line')).toBeVisible();
+  await expect(fields.getByTestId('cut-line')).toBeAttached(); // a horizontal line has no height to be "visible"
   await expect(fields.getByTestId('profile-plot')).toBeVisible();
   await expect(fields.getByTestId('profile-line')).toHaveAttribute('d', /L/);
   // Typed ends work too (keyboard).
@@ -120,7 +152,8 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
 
   // Save the run with the revision.
   await fields.getByTestId('save-run').click();
-  await expect(page.getByText('Run saved with the revision')).toBeVisible();
+  await expect(page.locator('mat-snack-bar-container')).toContainText('Run saved with the revision');
+  await expect(fields.getByTestId('save-blocker')).toContainText('Saved with the revision');
   await expect(page).toHaveURL(/run=\d+/);
   const runId = /run=(\d+)/.exec(page.url())![1];
 
@@ -137,6 +170,11 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
   await expect(fields.getByTestId('solve-status')).not.toHaveAttribute('data-solve-ms', /./);
   await expect(fields.getByTestId('fields-hv-caution')).toBeVisible();
   await expect(fields.getByTestId('map-outline')).toHaveAttribute('d', /M/);
+  // The picture from the link itself: History's expanded panel, kept off to the right in its hidden tab (with
+  // visibility: visible of its own), would count as overflow in the check although the tab clips it.
+  await page.reload();
+  await expect(fields.getByTestId('run-shown')).toContainText(`Stored run ${runId}`);
+  await expect(fields.getByTestId('solve-status')).not.toHaveAttribute('data-solve-ms', /./);
   await shot(page, 'fields-run-opened');
 
   // A viewer opens the same run but has nothing to save.
@@ -148,6 +186,8 @@ test('a designer sets 1.5 kV, solves the cross injector, reads the fields, saves
   await page.getByTestId('run-row').first().getByTestId('open-run').click();
   await expect(fields.getByTestId('run-shown')).toBeVisible();
   await expect(fields.getByTestId('save-run')).toHaveCount(0);
+  await page.reload();
+  await expect(fields.getByTestId('run-shown')).toBeVisible();
   await shot(page, 'fields-run-viewer');
 
   expect(seen.offsite).toEqual([]);

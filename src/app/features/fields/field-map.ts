@@ -22,7 +22,7 @@ import type { SolveFields } from '../../../../solver/result/types';
 import { formatLength, scaleBarLength } from '../../ui/layout-geometry';
 import { fieldImage } from './field-image';
 import type { ColourRange } from './field-maps';
-import { insideFluid, sampleAt, type Vec } from './field-sampling';
+import { insideFluid, type Vec } from './field-sampling';
 import { traceStreamlines } from './streamlines';
 
 /** A port drawn on the map: its cap as a segment (m). */
@@ -234,24 +234,47 @@ export class FieldMap {
     const top = this.arrowSpeed();
     if (!(top > 0)) return '';
     const path = d3.path();
-    const x0 = ((v.x % ARROW_PX) + ARROW_PX) % ARROW_PX, y0 = ((v.y % ARROW_PX) + ARROW_PX) % ARROW_PX;
-    for (let Y = y0 + ARROW_PX / 2; Y < h; Y += ARROW_PX) {
-      for (let X = x0 + ARROW_PX / 2; X < w; X += ARROW_PX) {
-        const wx = (X - v.x) / v.k, wy = (v.y - Y) / v.k;
-        if (!insideFluid(f, [wx, wy])) continue;
-        const u = sampleAt(f, f.velocityX, wx, wy), vy = sampleAt(f, f.velocityY, wx, wy);
-        const speed = Math.hypot(u, vy);
-        if (!(speed > top * 0.02)) continue;
-        const len = Math.min(1, speed / top) * (ARROW_PX - 8);
-        const dx = (u / speed) * len, dy = (-vy / speed) * len;
-        const tx = X - dx / 2, ty = Y - dy / 2, hx = X + dx / 2, hy = Y + dy / 2;
-        path.moveTo(tx, ty);
-        path.lineTo(hx, hy);
-        const head = Math.min(5, 0.45 * len), ux = dx / len, uy = dy / len;
-        path.moveTo(hx - head * (ux + 0.55 * uy), hy - head * (uy - 0.55 * ux));
-        path.lineTo(hx, hy);
-        path.lineTo(hx - head * (ux - 0.55 * uy), hy - head * (uy + 0.55 * ux));
+    // One arrow per ARROW_PX square of the screen, at the fluid cell nearest the square's centre, so that channels
+    // narrower than the squares still get theirs.
+    const cols = Math.ceil(w / ARROW_PX), rows = Math.ceil(h / ARROW_PX);
+    const best = new Int32Array(cols * rows).fill(-1);
+    const dist = new Float64Array(cols * rows).fill(Infinity);
+    const cellPx = f.spacing * v.k;
+    // When cells are larger than the squares, every visible cell centre is a candidate anyway.
+    const i0 = Math.max(0, Math.floor((-v.x / v.k - f.x0) / f.spacing)), i1 = Math.min(f.nx - 1, Math.ceil(((w - v.x) / v.k - f.x0) / f.spacing));
+    const j0 = Math.max(0, Math.floor(((v.y - h) / v.k - f.y0) / f.spacing)), j1 = Math.min(f.ny - 1, Math.ceil((v.y / v.k - f.y0) / f.spacing));
+    for (let j = j0; j <= j1; j++) {
+      for (let i = i0; i <= i1; i++) {
+        const c = i + j * f.nx;
+        if (!(f.fraction[c] >= 0.5)) continue;
+        const X = v.x + v.k * (f.x0 + (i + 0.5) * f.spacing), Y = v.y - v.k * (f.y0 + (j + 0.5) * f.spacing);
+        if (X < 0 || Y < 0 || X >= w || Y >= h) continue;
+        const col = Math.floor(X / ARROW_PX), row = Math.floor(Y / ARROW_PX), b = col + row * cols;
+        const d = (X - (col + 0.5) * ARROW_PX) ** 2 + (Y - (row + 0.5) * ARROW_PX) ** 2;
+        if (d < dist[b]) {
+          dist[b] = d;
+          best[b] = c;
+        }
       }
+    }
+    const room = Math.max(ARROW_PX - 8, Math.min(cellPx, 2 * ARROW_PX));
+    for (const c of best) {
+      if (c < 0) continue;
+      const i = c % f.nx, j = (c - i) / f.nx;
+      const u = f.velocityX[c], vy = f.velocityY[c];
+      const speed = Math.hypot(u, vy);
+      if (!(speed > top * 0.02)) continue;
+      const X = v.x + v.k * (f.x0 + (i + 0.5) * f.spacing), Y = v.y - v.k * (f.y0 + (j + 0.5) * f.spacing);
+      // Length grows with speed; never so short that the head hides the direction.
+      const len = Math.max(9, Math.min(1, speed / top) * room);
+      const dx = (u / speed) * len, dy = (-vy / speed) * len;
+      const hx = X + dx / 2, hy = Y + dy / 2;
+      path.moveTo(X - dx / 2, Y - dy / 2);
+      path.lineTo(hx, hy);
+      const head = Math.min(5, 0.45 * len), ux = dx / len, uy = dy / len;
+      path.moveTo(hx - head * (ux + 0.55 * uy), hy - head * (uy - 0.55 * ux));
+      path.lineTo(hx, hy);
+      path.lineTo(hx - head * (ux - 0.55 * uy), hy - head * (uy + 0.55 * ux));
     }
     return path.toString();
   });

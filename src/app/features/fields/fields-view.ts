@@ -24,7 +24,7 @@ import { formatQuantity, parseQuantity } from '../../ui/units';
 import { fluidOutline } from '../sketch/sketch-path';
 import { ColourBar } from './colour-bar';
 import { FieldMap, type CutLine, type MapMarker, type MapPort } from './field-map';
-import { MAPS, MAP_IDS, colourRange, mapValues, type MapId } from './field-maps';
+import { CLIP_SHARE, MAPS, MAP_IDS, colourRange, mapValues, type MapId } from './field-maps';
 import { lineProfile, probeFields, type Vec } from './field-sampling';
 import { PortTable, type PortRow } from './port-table';
 import { ProfilePlot } from './profile-plot';
@@ -105,6 +105,7 @@ export class FieldsView {
   protected readonly resolutions = RESOLUTIONS;
   protected readonly caution = HIGH_VOLTAGE_CAUTION;
   protected readonly highVoltage = LIMITS.highVoltage;
+  protected readonly clipPercent = CLIP_SHARE * 100;
   /** Height of the map row (px; fields-view.scss). */
   protected readonly mapHeight = 400;
 

@@ -52,19 +52,30 @@ export class ProfilePlot {
   readonly title = input.required<string>();
   readonly dimension = input.required<Dimension>();
   readonly height = input(190);
+  /** Start the y axis at zero (magnitudes). */
+  readonly fromZero = input(false);
 
   protected readonly m = M;
   protected readonly width = signal(600);
   protected readonly innerW = computed(() => Math.max(40, this.width() - M.left - M.right));
   protected readonly innerH = computed(() => Math.max(40, this.height() - M.top - M.bottom));
 
+  /**
+   * The y range: from zero for magnitudes (a plug profile then reads as flat, as it is); otherwise the values'
+   * range, widened to at least a thousandth of their size so rounding noise is not blown up into a shape.
+   */
   private readonly extent = computed<[number, number]>(() => {
     let lo = Infinity, hi = -Infinity;
     for (const v of this.profile().values) if (Number.isFinite(v)) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
     if (!Number.isFinite(lo)) return [0, 1];
-    if (hi === lo) {
-      const pad = Math.abs(hi) * 0.05 || 1e-12;
-      return [lo - pad, hi + pad];
+    if (this.fromZero()) {
+      lo = Math.min(0, lo);
+      hi = Math.max(0, hi);
+    }
+    const least = Math.max(Math.abs(lo), Math.abs(hi)) * 1e-3 || 1e-12;
+    if (hi - lo < least) {
+      const mid = (hi + lo) / 2;
+      return [mid - least / 2, mid + least / 2];
     }
     return [lo, hi];
   });

@@ -1,4 +1,4 @@
-import { rk2Step, seeds, traceStreamlines } from './streamlines';
+import { centreAcross, rk2Step, seeds, traceStreamlines } from './streamlines';
 import { makeFields } from './test-fields';
 
 const h = 1e-5;
@@ -52,5 +52,16 @@ describe('streamlines', () => {
     const f = makeFields(10, 10, h, {}, (x) => x < 5e-5);
     expect(seeds(f, 2e-5, 100).every(([x]) => x < 5e-5)).toBe(true);
     expect(traceStreamlines(f, { separation: 2e-5 })).toEqual([]);
+  });
+});
+
+describe('centreAcross', () => {
+  it('moves a seed to the middle of a channel narrower than the separation, and leaves it in a wide one', () => {
+    const narrow = makeFields(100, 20, h, { velocityX: () => 1e-3, velocityY: () => 0 }, (_x, y) => y > 5e-5 && y < 1e-4);
+    const [x, y] = centreAcross(narrow, [5e-4, 6e-5], 1e-4);
+    expect(x).toBeCloseTo(5e-4, 12);
+    expect(Math.abs(y - 7.5e-5)).toBeLessThanOrEqual(h / 4); // the walk steps a quarter cell
+    const wide = makeFields(100, 100, h, { velocityX: () => 1e-3, velocityY: () => 0 });
+    expect(centreAcross(wide, [5e-4, 3e-4], 1e-4)).toEqual([5e-4, 3e-4]);
   });
 });

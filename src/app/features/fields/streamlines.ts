@@ -111,7 +111,8 @@ export function traceStreamlines(f: Fields, options: StreamlineOptions): Float64
 
   const lines: Float64Array[] = [];
   // Candidates on a lattice twice as fine as the separation, so that narrow channels get seeds too.
-  for (const seed of seeds(f, sep / 2, options.maxSeeds ?? 20000)) {
+  for (const candidate of seeds(f, sep / 2, options.maxSeeds ?? 20000)) {
+    const seed = centreAcross(f, candidate, sep, minSpeed);
     if (crowded(seed[0], seed[1], sep)) continue;
     const backward = half(seed, -1);
     const back = backward.pts, ahead = backward.closed ? [] : half(seed, 1).pts;
@@ -129,6 +130,30 @@ export function traceStreamlines(f: Fields, options: StreamlineOptions): Float64
     lines.push(line);
   }
   return lines;
+}
+
+/**
+ * A seed moved to the middle of its channel when the channel is narrower than the line separation: walk across
+ * the flow both ways to the walls (at most sep/2 each way) and take the midpoint. Lines in narrow channels then
+ * run down their middles instead of along a wall; in wide regions the seed stays where it is.
+ */
+export function centreAcross(f: Fields, p: readonly [number, number], sep: number, minSpeed = 0): [number, number] {
+  const d = direction(f, p[0], p[1], minSpeed);
+  if (!d) return [p[0], p[1]];
+  const nx = -d[1], ny = d[0];
+  const step = f.spacing / 4, limit = sep / 2;
+  const wall = (sign: 1 | -1): number | null => {
+    for (let t = step; t <= limit; t += step) {
+      const x = p[0] + sign * t * nx, y = p[1] + sign * t * ny;
+      const i = Math.floor((x - f.x0) / f.spacing), j = Math.floor((y - f.y0) / f.spacing);
+      if (i < 0 || j < 0 || i >= f.nx || j >= f.ny || !(f.fraction[i + j * f.nx] >= 0.5)) return t;
+    }
+    return null;
+  };
+  const plus = wall(1), minus = wall(-1);
+  if (plus === null || minus === null) return [p[0], p[1]];
+  const shift = (plus - minus) / 2;
+  return [p[0] + shift * nx, p[1] + shift * ny];
 }
 
 /** Seeds at the centres of a lattice of spacing `sep`, kept where the cell there is mostly fluid. */
