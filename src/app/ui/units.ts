@@ -30,7 +30,10 @@ export type Dimension =
   | 'flowRate'
   | 'vorticity'
   | 'streamfunction'
-  | 'power';
+  | 'power'
+  // Tracer and double layer.
+  | 'diffusivity'
+  | 'time';
 
 interface DimensionInfo {
   /** What the user is asked for, in words ("a length"). */
@@ -247,7 +250,32 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
     zero: 'mW',
     digits: 4,
   },
+  diffusivity: {
+    noun: 'a diffusivity',
+    si: 'm^2/s',
+    example: '1e-9 m2/s or 1000 um2/s',
+    // Written like a mobility: "1 × 10⁻⁹ m²/s", the way tables quote molecular diffusivities.
+    display: [{ label: 'm²/s', factor: 1 }],
+    zero: 'm²/s',
+    digits: 4,
+  },
+  time: {
+    noun: 'a time',
+    si: 's',
+    example: '50 ms or 1.5 s',
+    display: [
+      { label: 'ns', factor: 1e-9 },
+      { label: 'µs', factor: 1e-6 },
+      { label: 'ms', factor: 1e-3 },
+      { label: 's', factor: 1 },
+    ],
+    zero: 's',
+    digits: 4,
+  },
 };
+
+/** Dimensions written as mantissa × 10^exponent in their one SI unit. */
+const EXPONENT_FORM: ReadonlySet<Dimension> = new Set(['mobility', 'diffusivity']);
 
 /** Zero in Celsius, in kelvin. */
 const CELSIUS_ZERO = 273.15;
@@ -390,7 +418,7 @@ export function formatQuantity(value: number, dimension: Dimension, options: For
   if (!Number.isFinite(value)) return '–';
   const join = (n: string, unit: string) => (unit === '' ? n : unit === '°' ? `${n}°` : `${n} ${unit}`);
   if (dimension === 'temperature') return join(trimNumber(value - CELSIUS_ZERO, digits), '°C');
-  if (dimension === 'mobility') {
+  if (EXPONENT_FORM.has(dimension)) {
     if (value === 0) return join('0', info.zero);
     const exp = Math.floor(Math.log10(Math.abs(value)));
     const mantissa = value / 10 ** exp;
@@ -413,7 +441,7 @@ export function formatQuantity(value: number, dimension: Dimension, options: For
  */
 export function displayUnit(maxAbs: number, dimension: Dimension): { label: string; factor: number } {
   const info = DIMENSIONS[dimension];
-  if (dimension === 'temperature' || dimension === 'mobility') return { label: info.zero, factor: 1 };
+  if (dimension === 'temperature' || EXPONENT_FORM.has(dimension)) return { label: info.zero, factor: 1 };
   if (!(Number.isFinite(maxAbs) && maxAbs > 0)) return info.display.find((u) => u.label === info.zero) ?? info.display[0];
   let chosen = info.display[0];
   for (const u of info.display) if (Number((maxAbs / u.factor).toPrecision(info.digits)) >= 1) chosen = u;
