@@ -248,12 +248,7 @@ export class FieldsView {
       if (doc.shapes === measuredShapes) return;
       measuredShapes = doc.shapes;
       clearTimeout(measureTimer);
-      measureTimer = setTimeout(() => {
-        this.solver.measure(doc).then(
-          (m) => this.measure.set(m),
-          () => this.measure.set({ narrowest: null, bounds: null, problem: 'the solver worker did not answer' }),
-        );
-      }, 250);
+      measureTimer = setTimeout(() => this.measureLayout(doc), 250);
     });
     destroyRef.onDestroy(() => clearTimeout(measureTimer));
 
@@ -305,6 +300,19 @@ export class FieldsView {
 
   protected cancel(): void {
     this.solver.cancel();
+    // A measure waiting behind the stopped solve ended with its worker: ask the fresh one.
+    this.measureLayout(this.document());
+  }
+
+  private measureLayout(doc: DesignDocument): void {
+    this.solver.measure(doc).then(
+      (m) => {
+        if (this.document() === doc) this.measure.set(m);
+      },
+      () => {
+        if (this.document() === doc && !this.measure()) this.measure.set({ narrowest: null, bounds: null, problem: 'the solver worker did not answer' });
+      },
+    );
   }
 
   protected setResolution(value: number): void {
