@@ -4,7 +4,7 @@
  */
 import { parseDesign } from '../../shared/design';
 import { compareDrives, type Comparison } from '../../solver/compare';
-import { unitResponses, type UnitResponses } from '../../solver/planner';
+import { drivesOf, unitResponses, type Drive, type UnitResponses } from '../../solver/planner';
 import { SolveError, type SolveProgress } from '../../solver/solve';
 import { runTrace, type TraceRun } from '../../solver/tracer';
 import type { AnalysisOutcome, AnalysisProgress, CompareOutcome, ResponsesOutcome, TraceOutcome, WorkerCompareOptions, WorkerSolveOptions, WorkerTraceRequest } from './solver-api';
@@ -57,13 +57,19 @@ export function compareOutcome(design: unknown, options: WorkerCompareOptions, r
   }));
 }
 
-export function responsesOutcome(design: unknown, options: WorkerSolveOptions, report?: Report): ResponsesOutcome {
+export function responsesOutcome(input: unknown, options: WorkerSolveOptions, report?: Report): ResponsesOutcome {
   return outcome(() => {
-    const parsed = parseDesign(design);
+    const parsed = parseDesign(input);
     if (!parsed.ok) throw new SolveError('invalid-design', parsed.errors.map((e) => `${e.field}: ${e.message}`).join('; '));
-    const electrodes = parsed.design.ports.filter((p) => p.potential !== null).map((p) => `unit response of ${p.id}`);
-    if (electrodes.length === 0) throw new SolveError('invalid-option', 'no port has an electrode: give at least one port a potential');
-    return { responses: unitResponses(parsed.design, { cells: options.cells, tolerance: options.tolerance, onProgress: solvesProgress(report, electrodes) }) };
+    const design = parsed.design;
+    if (!design.ports.some((p) => p.potential !== null)) throw new SolveError('invalid-option', 'no port has an electrode: give at least one port a potential');
+    // Every electrode at 1 V, and every head that is not zero at 1 Pa (the planner holds heads as they are).
+    const drives: Drive[] = [
+      ...drivesOf(design, false),
+      ...design.ports.filter((p) => (p.pressure ?? 0) !== 0).map((p) => ({ port: p.id, kind: 'pressure' as const })),
+    ];
+    const labels = drives.map((d) => (d.kind === 'potential' ? `unit response of ${d.port}` : `unit head at ${d.port}`));
+    return { responses: unitResponses(design, { drives, cells: options.cells, tolerance: options.tolerance, onProgress: solvesProgress(report, labels) }) };
   });
 }
 
