@@ -1,0 +1,261 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, afterNextRender, afterRenderEffect, computed, inject, input, output, signal, viewChild } from '@angular/core';
+import type { SolveFields } from '../../../../solver/result/types';
+import { fieldImage } from '../fields/field-image';
+import type { ColourRange } from '../fields/field-maps';
+import type { MapPort } from '../fields/field-map';
+import type { Vec } from '../fields/field-sampling';
+
+export type DrawMode = 'line' | 'region' | 'detector' | null;
+
+const MARGIN = 20;
+
+/**
+ * The Tracer's map: the layout fitted to the box, the speed of the phase shown (the shared colour map) or the plain
+ * fluid before a run, the injection (line or region) and the detector, the particles of one frame, and drawing:
+ * in a draw mode a drag gives a line (injection, detector) or a rectangle (region).
+ */
+@Component({
+  selector: 'osm-tracer-map',
+  template: `
+    <canvas #base aria-hidden="true"></canvas>
+    <canvas #dots aria-hidden="true"></canvas>
+    <svg [attr.width]="size().w" [attr.height]="size().h" [class.drawing]="drawMode() !== null" role="img" [attr.aria-label]="ariaLabel()"
+      (pointerdown)="onDown($event)" (pointermove)="onMove($event)" (pointerup)="onUp($event)" data-testid="tracer-map-svg">
+      <path class="outline" [attr.d]="outlinePath()" data-testid="tracer-outline" />
+      @for (p of portMarks(); track p.id) {
+        <line class="port" [attr.x1]="p.x1" [attr.y1]="p.y1" [attr.x2]="p.x2" [attr.y2]="p.y2" />
+        <text class="label" [attr.x]="p.lx" [attr.y]="p.ly" text-anchor="middle" dominant-baseline="central">{{ p.id }}</text>
+      }
+      @if (injectionMark(); as m) {
+        @if (m.kind === 'line') {
+          <line class="inject" [attr.x1]="m.x1" [attr.y1]="m.y1" [attr.x2]="m.x2" [attr.y2]="m.y2" data-testid="tracer-injection" />
+        } @else {
+          <polygon class="inject-region" [attr.points]="m.points" data-testid="tracer-injection" />
+        }
+      }
+      @if (detectorMark(); as d) {
+        <line class="detector-under" [attr.x1]="d.x1" [attr.y1]="d.y1" [attr.x2]="d.x2" [attr.y2]="d.y2" />
+        <line class="detector" [attr.x1]="d.x1" [attr.y1]="d.y1" [attr.x2]="d.x2" [attr.y2]="d.y2" data-testid="tracer-detector" />
+        <text class="label" [attr.x]="d.x2 + 6" [attr.y]="d.y2 - 6">detector</text>
+      }
+      @if (draftMark(); as d) {
+        @if (drawMode() === 'region') {
+          <rect class="draft" [attr.x]="d.x" [attr.y]="d.y" [attr.width]="d.w" [attr.height]="d.h" />
+        } @else {
+          <line class="draft" [attr.x1]="d.x1" [attr.y1]="d.y1" [attr.x2]="d.x2" [attr.y2]="d.y2" />
+        }
+      }
+    </svg>
+  `,
+  styles: `
+    :host { display: block; position: relative; overflow: hidden; min-width: 0; background: var(--mat-sys-surface-container-low);
+      border: 1px solid var(--mat-sys-outline-variant); border-radius: 4px; }
+    canvas, svg { position: absolute; left: 0; top: 0; }
+    svg.drawing { cursor: crosshair; }
+    .outline { fill: none; stroke: #262626; stroke-width: 1.25px; stroke-linejoin: round; }
+    .port { stroke: var(--mat-sys-tertiary); stroke-width: 4px; }
+    .label { font-size: 11px; font-weight: 600; fill: var(--mat-sys-on-surface); paint-order: stroke; stroke: var(--mat-sys-surface); stroke-width: 3px; }
+    .inject { stroke: #d7301f; stroke-width: 2.5px; }
+    .inject-region { fill: rgba(215, 48, 31, 0.25); stroke: #d7301f; stroke-width: 1.5px; }
+    .detector-under { stroke: #fff; stroke-width: 5px; }
+    .detector { stroke: #111; stroke-width: 2px; stroke-dasharray: 5 3; }
+    .draft { fill: rgba(0, 0, 0, 0.08); stroke: #111; stroke-width: 1.5px; stroke-dasharray: 4 3; }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class TracerMap {
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+
+  readonly outline = input.required<ReadonlyArray<ReadonlyArray<Vec>>>();
+  readonly ports = input<ReadonlyArray<MapPort>>([]);
+  readonly fields = input<SolveFields | null>(null);
+  readonly values = input<Float32Array | null>(null);
+  readonly range = input<ColourRange | null>(null);
+  readonly injection = input<{ kind: 'line'; from: Vec; to: Vec } | { kind: 'region'; polygon: ReadonlyArray<Vec> } | null>(null);
+  readonly detector = input<{ from: Vec; to: Vec } | null>(null);
+  /** x0, y0, x1, y1, ... (m); NaN for particles that left by a port. */
+  readonly particles = input<Float32Array | null>(null);
+  readonly drawMode = input<DrawMode>(null);
+  readonly ariaLabel = input('Tracer map');
+  /** A finished drag in a draw mode: its two ends (m). */
+  readonly drawn = output<{ mode: Exclude<DrawMode, null>; a: Vec; b: Vec }>();
+
+  private readonly baseCanvas = viewChild.required<ElementRef<HTMLCanvasElement>>('base');
+  private readonly dotsCanvas = viewChild.required<ElementRef<HTMLCanvasElement>>('dots');
+  private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
+  protected readonly size = signal({ w: 600, h: 320 });
+  private readonly draft = signal<[Vec, Vec] | null>(null);
+
+  /** Fit of the layout: X = ox + k x, Y = oy − k y. */
+  private readonly view = computed(() => {
+    let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+    for (const ring of this.outline()) for (const [x, y] of ring) {
+      x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y);
+    }
+    if (!Number.isFinite(x0)) [x0, y0, x1, y1] = [0, 0, 1e-3, 1e-3];
+    const { w, h } = this.size();
+    const k = Math.min((w - 2 * MARGIN) / Math.max(x1 - x0, 1e-12), (h - 2 * MARGIN) / Math.max(y1 - y0, 1e-12));
+    return { k, ox: (w - k * (x1 - x0)) / 2 - k * x0, oy: (h + k * (y1 - y0)) / 2 + k * y0 };
+  });
+
+  private screen(p: Vec): [number, number] {
+    const v = this.view();
+    return [v.ox + v.k * p[0], v.oy - v.k * p[1]];
+  }
+
+  protected readonly outlinePath = computed(() =>
+    this.outline()
+      .map((ring) => ring.map((p, k) => `${k ? 'L' : 'M'}${this.screen(p).map((c) => c.toFixed(1)).join(',')}`).join('') + 'Z')
+      .join(''),
+  );
+  protected readonly portMarks = computed(() =>
+    this.ports().map((p) => {
+      const [x1, y1] = this.screen(p.from), [x2, y2] = this.screen(p.to);
+      const len = Math.hypot(x2 - x1, y2 - y1) || 1;
+      // Label beside the port, on the side of the drawing's outside (away from the box centre).
+      const { w, h } = this.size();
+      let nx = -(y2 - y1) / len, ny = (x2 - x1) / len;
+      const mx = (x1 + x2) / 2, my = (y1 + y2) / 2;
+      if ((mx - w / 2) * nx + (my - h / 2) * ny < 0) [nx, ny] = [-nx, -ny];
+      return { id: p.id, x1, y1, x2, y2, lx: mx + nx * 11, ly: my + ny * 11 };
+    }),
+  );
+  protected readonly injectionMark = computed(() => {
+    const inj = this.injection();
+    if (!inj) return null;
+    if (inj.kind === 'line') {
+      const [x1, y1] = this.screen(inj.from), [x2, y2] = this.screen(inj.to);
+      return { kind: 'line' as const, x1, y1, x2, y2 };
+    }
+    return { kind: 'region' as const, points: inj.polygon.map((p) => this.screen(p).join(',')).join(' ') };
+  });
+  protected readonly detectorMark = computed(() => {
+    const d = this.detector();
+    if (!d) return null;
+    const [x1, y1] = this.screen(d.from), [x2, y2] = this.screen(d.to);
+    return { x1, y1, x2, y2 };
+  });
+  protected readonly draftMark = computed(() => {
+    const d = this.draft();
+    if (!d) return null;
+    const [x1, y1] = this.screen(d[0]), [x2, y2] = this.screen(d[1]);
+    return { x1, y1, x2, y2, x: Math.min(x1, x2), y: Math.min(y1, y2), w: Math.abs(x2 - x1), h: Math.abs(y2 - y1) };
+  });
+
+  private readonly image = computed(() => {
+    const f = this.fields(), v = this.values(), r = this.range();
+    if (!f || !v || !r || typeof document === 'undefined') return null;
+    const off = document.createElement('canvas');
+    off.width = f.nx;
+    off.height = f.ny;
+    const ctx = off.getContext('2d');
+    if (!ctx) return null;
+    ctx.putImageData(new ImageData(fieldImage(v, f.nx, f.ny, r), f.nx, f.ny), 0, 0);
+    return off;
+  });
+
+  constructor() {
+    const destroyRef = inject(DestroyRef);
+    afterNextRender(() => {
+      const el = this.host.nativeElement;
+      const measure = () => {
+        const r = el.getBoundingClientRect();
+        if (r.width > 0 && r.height > 0) this.size.set({ w: Math.floor(r.width), h: Math.floor(r.height) });
+      };
+      measure();
+      if (typeof ResizeObserver !== 'undefined') {
+        const ro = new ResizeObserver(measure);
+        ro.observe(el);
+        destroyRef.onDestroy(() => ro.disconnect());
+      }
+    });
+    afterRenderEffect(() => this.drawBase());
+    afterRenderEffect(() => this.drawDots());
+  }
+
+  private prepare(canvas: HTMLCanvasElement): CanvasRenderingContext2D | null {
+    const { w, h } = this.size();
+    const dpr = typeof devicePixelRatio === 'number' ? devicePixelRatio : 1;
+    if (canvas.width !== Math.round(w * dpr) || canvas.height !== Math.round(h * dpr)) {
+      canvas.width = Math.round(w * dpr);
+      canvas.height = Math.round(h * dpr);
+      canvas.style.width = `${w}px`;
+      canvas.style.height = `${h}px`;
+    }
+    const ctx = canvas.getContext('2d');
+    if (!ctx) return null;
+    ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
+    ctx.clearRect(0, 0, w, h);
+    return ctx;
+  }
+
+  private drawBase(): void {
+    const ctx = this.prepare(this.baseCanvas().nativeElement);
+    const image = this.image(), f = this.fields(), v = this.view();
+    if (!ctx) return;
+    const clip = new Path2D();
+    for (const ring of this.outline()) {
+      ring.forEach((p, k) => (k ? clip.lineTo(...this.screen(p)) : clip.moveTo(...this.screen(p))));
+      clip.closePath();
+    }
+    ctx.save();
+    ctx.clip(clip, 'evenodd');
+    if (image && f) {
+      ctx.imageSmoothingEnabled = v.k * f.spacing > 3;
+      const [left, top] = this.screen([f.x0, f.y0 + f.ny * f.spacing]);
+      ctx.drawImage(image, left, top, f.nx * f.spacing * v.k, f.ny * f.spacing * v.k);
+    } else {
+      ctx.fillStyle = '#e4ebea';
+      ctx.fillRect(0, 0, this.size().w, this.size().h);
+    }
+    ctx.restore();
+  }
+
+  private drawDots(): void {
+    const ctx = this.prepare(this.dotsCanvas().nativeElement);
+    const pts = this.particles();
+    if (!ctx || !pts) return;
+    const { k, ox, oy } = this.view();
+    ctx.fillStyle = 'rgba(255, 255, 255, 0.95)';
+    ctx.strokeStyle = 'rgba(20, 20, 20, 0.9)';
+    ctx.lineWidth = 0.8;
+    ctx.beginPath();
+    for (let i = 0; i < pts.length; i += 2) {
+      const x = pts[i];
+      if (x !== x) continue;
+      const X = ox + k * x, Y = oy - k * pts[i + 1];
+      ctx.moveTo(X + 2, Y);
+      ctx.arc(X, Y, 2, 0, 2 * Math.PI);
+    }
+    ctx.fill();
+    ctx.stroke();
+  }
+
+  private world(event: PointerEvent): Vec {
+    const r = this.svg().nativeElement.getBoundingClientRect();
+    const { k, ox, oy } = this.view();
+    return [(event.clientX - r.left - ox) / k, (oy - (event.clientY - r.top)) / k];
+  }
+
+  protected onDown(event: PointerEvent): void {
+    if (!this.drawMode() || event.button !== 0) return;
+    event.preventDefault();
+    this.svg().nativeElement.setPointerCapture?.(event.pointerId);
+    const p = this.world(event);
+    this.draft.set([p, p]);
+  }
+
+  protected onMove(event: PointerEvent): void {
+    const d = this.draft();
+    if (d) this.draft.set([d[0], this.world(event)]);
+  }
+
+  protected onUp(event: PointerEvent): void {
+    const d = this.draft(), mode = this.drawMode();
+    if (!d || !mode) return;
+    this.draft.set(null);
+    const b = this.world(event);
+    const [X1, Y1] = this.screen(d[0]), [X2, Y2] = this.screen(b);
+    if (Math.hypot(X2 - X1, Y2 - Y1) >= 4) this.drawn.emit({ mode, a: d[0], b });
+  }
+}
