@@ -3,6 +3,10 @@ jest.mock('../sketch/sketch-editor', () => jest.requireActual('./testing/tab-stu
 jest.mock('../conditions/conditions-panel', () => jest.requireActual('./testing/tab-stubs'));
 jest.mock('../fields/fields-view', () => jest.requireActual('./testing/tab-stubs'));
 jest.mock('../sweeps/sweeps-tab', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../compare/compare-tab', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../tracer/tracer-tab', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../planner/planner-tab', () => jest.requireActual('./testing/tab-stubs'));
+jest.mock('../double-layer/double-layer-tab', () => jest.requireActual('./testing/tab-stubs'));
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
@@ -65,11 +69,11 @@ describe('DesignPage', () => {
     jest.useRealTimers();
   });
 
-  it('shows the design with its review state and the Sketch, Conditions, Fields, Sweeps and History tabs', async () => {
+  it('shows the design with its review state and all its tabs, Sketch to History', async () => {
     await open();
     expect(el.querySelector('[data-testid=design-name]')?.textContent).toContain('Cross injector');
     expect(el.querySelector('[data-testid=review-chip]')?.textContent).toContain('draft');
-    expect(Array.from(el.querySelectorAll('[role=tab]')).map((t) => t.textContent?.trim())).toEqual(['Sketch', 'Conditions', 'Fields', 'Sweeps', 'History']);
+    expect(Array.from(el.querySelectorAll('[role=tab]')).map((t) => t.textContent?.trim())).toEqual(['Sketch', 'Conditions', 'Fields', 'Compare', 'Tracer', 'Planner', 'Double layer', 'Sweeps', 'History']);
     expect(el.querySelector('osm-sketch-editor')?.textContent).toContain('editable');
     expect(el.querySelector('[data-testid=save-revision]')).not.toBeNull();
     expect(el.querySelector('[data-testid=save-state]')?.textContent).toContain('All changes saved');

@@ -19,18 +19,22 @@ import { ROLE_LABELS, canEdit, reviewTransitions } from '../../core/roles';
 import { WorkspaceContext } from '../../core/workspace-context';
 import { ConfirmDialog, type ConfirmData } from '../../ui/confirm-dialog';
 import { ReviewChip } from '../../ui/review-chip';
+import { CompareTab } from '../compare/compare-tab';
 import { ConditionsPanel } from '../conditions/conditions-panel';
+import { DoubleLayerTab } from '../double-layer/double-layer-tab';
 import { FieldsView } from '../fields/fields-view';
 import { ExportMenu } from '../files/export-menu';
 import { HistoryTab } from '../history/history-tab';
+import { PlannerTab } from '../planner/planner-tab';
 import { SketchEditor } from '../sketch/sketch-editor';
 import { SweepsTab } from '../sweeps/sweeps-tab';
+import { TracerTab } from '../tracer/tracer-tab';
 import { ConflictDialog, type ConflictChoice, type ConflictData } from './conflict-dialog';
 import { sameDocument } from './same-document';
 import { SaveRevisionDialog, type SaveRevisionData } from './save-revision-dialog';
 
 /** Tabs of the design page, in order, as `?tab=` names them (later issues add Compare, Tracer, Planner, ...). */
-export const DESIGN_TABS = ['sketch', 'conditions', 'fields', 'sweeps', 'history'] as const;
+export const DESIGN_TABS = ['sketch', 'conditions', 'fields', 'compare', 'tracer', 'planner', 'double-layer', 'sweeps', 'history'] as const;
 export type DesignTab = (typeof DESIGN_TABS)[number];
 
 /** Quiet time after the last edit before the draft is saved. */
@@ -41,7 +45,7 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'conflict' | 'failed';
 /**
  * The design page (/designs/:id): loads the design, holds the working document, autosaves the draft with the
  * optimistic version (a conflict always asks), saves revisions, moves the review state as the role allows, and
- * hosts the Sketch, Conditions, Fields, Sweeps and History tabs. Viewers and reviewers see the document read-only.
+ * hosts the Sketch, Conditions, Fields, Compare, Tracer, Planner, Double layer, Sweeps and History tabs. Viewers and reviewers see the document read-only.
  */
 @Component({
   selector: 'osm-design-page',
@@ -57,6 +61,10 @@ export type SaveState = 'saved' | 'pending' | 'saving' | 'conflict' | 'failed';
     SketchEditor,
     ConditionsPanel,
     FieldsView,
+    CompareTab,
+    TracerTab,
+    PlannerTab,
+    DoubleLayerTab,
     SweepsTab,
     HistoryTab,
     ExportMenu,
