@@ -10,8 +10,10 @@
  * σ ℓ p_c on a port face), so the saddle-point system [A −Bᵀ; −B 0] is symmetric.
  * Merged small cells (cell-merging.ts) pass their mass balance on to the cell they joined and take its
  * pressure; their own entries stay 0.
+ * Only the faces between fluid cells can be open, so both loops visit the runs of fluid cells (fluid-runs.ts).
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import type { MergedCouplings } from './cell-merging';
 import type { PortFaces } from './port-faces';
 
@@ -27,26 +29,26 @@ export function addDivergence(
 ): void {
   const { nx, ny, apertureX: ax, apertureY: ay } = grid;
   const h = grid.spacing * factor;
-  const sx = nx + 1;
+  const { runs, rowRuns } = fluidRuns(grid);
   for (let j = 0; j < ny; j++) {
-    const row = j * nx;
-    for (let i = 1; i < nx; i++) {
-      const a = ax[i + j * sx];
-      if (a === 0) continue;
-      const flux = a * h * u[i + j * sx];
-      out[row + i - 1] += flux;
-      out[row + i] -= flux;
-    }
-  }
-  for (let j = 1; j < ny; j++) {
-    const row = j * nx;
-    for (let i = 0; i < nx; i++) {
-      const c = row + i;
-      const a = ay[c];
-      if (a === 0) continue;
-      const flux = a * h * v[c];
-      out[c - nx] += flux;
-      out[c] -= flux;
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      const end = runs[k + 1];
+      // Vertical face c + j lies between cells c − 1 and c; horizontal face c between c − nx and c.
+      for (let c = runs[k] + 1; c < end; c++) {
+        const a = ax[c + j];
+        if (a === 0) continue;
+        const flux = a * h * u[c + j];
+        out[c - 1] += flux;
+        out[c] -= flux;
+      }
+      if (j === 0) continue;
+      for (let c = runs[k]; c < end; c++) {
+        const a = ay[c];
+        if (a === 0) continue;
+        const flux = a * h * v[c];
+        out[c - nx] += flux;
+        out[c] -= flux;
+      }
     }
   }
   for (let f = 0; f < ports.count; f++) {
@@ -74,23 +76,19 @@ export function addDivergenceTranspose(
 ): void {
   const { nx, ny, apertureX: ax, apertureY: ay } = grid;
   const h = grid.spacing * factor;
-  const sx = nx + 1;
+  const { runs, rowRuns } = fluidRuns(grid);
   for (let j = 0; j < ny; j++) {
-    const row = j * nx;
-    for (let i = 1; i < nx; i++) {
-      const f = i + j * sx;
-      const a = ax[f];
-      if (a === 0) continue;
-      outU[f] += a * h * (p[row + i - 1] - p[row + i]);
-    }
-  }
-  for (let j = 1; j < ny; j++) {
-    const row = j * nx;
-    for (let i = 0; i < nx; i++) {
-      const c = row + i;
-      const a = ay[c];
-      if (a === 0) continue;
-      outV[c] += a * h * (p[c - nx] - p[c]);
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      const end = runs[k + 1];
+      for (let c = runs[k] + 1; c < end; c++) {
+        const a = ax[c + j];
+        if (a !== 0) outU[c + j] += a * h * (p[c - 1] - p[c]);
+      }
+      if (j === 0) continue;
+      for (let c = runs[k]; c < end; c++) {
+        const a = ay[c];
+        if (a !== 0) outV[c] += a * h * (p[c - nx] - p[c]);
+      }
     }
   }
   for (let f = 0; f < ports.count; f++) {

@@ -10,10 +10,15 @@
  * layout), then p per cell; unknowns that do not exist (closed faces, solid cells) stay 0. The
  * preconditioner is block diagonal and symmetric positive definite: one multigrid V-cycle for each of A_u,
  * A_v (symmetric red–black sweeps, exact coarsest solve) and the Cahouet–Chabard Schur approximation.
+ *
+ * Every pass visits only the unknowns that exist: the runs of active velocity nodes (Operator5.runs) and of
+ * pressure cells, together `support`, the runs of the whole vector that MINRES works on (minres.ts). Entries
+ * outside them stay 0.
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { runsOf } from '../grid/fluid-runs';
 import { vcycle, type Hierarchy } from '../multigrid/cycle';
-import type { Operator5 } from '../multigrid/operator';
+import { activeRuns, type Operator5 } from '../multigrid/operator';
 import type { MergedCouplings } from './cell-merging';
 import { addDivergence, addDivergenceTranspose } from './divergence';
 import type { PortFaces } from './port-faces';
@@ -31,6 +36,10 @@ export interface SaddlePointSystem {
   offsetV: number;
   offsetP: number;
   size: number;
+  /** Runs [first, end) of the pressure cells (grid cell indices). */
+  pressureRuns: Int32Array;
+  /** Runs of the unknowns in the whole vector: u nodes, v nodes, pressure cells. */
+  support: Int32Array;
 }
 
 export function saddlePointSystem(
@@ -41,7 +50,15 @@ export function saddlePointSystem(
   pressureActive: Uint8Array,
 ): SaddlePointSystem {
   const nu = ops[0].n1 * ops[0].n2, nv = ops[1].n1 * ops[1].n2;
-  return { grid, ports, ops, merged, pressureActive, offsetV: nu, offsetP: nu + nv, size: nu + nv + grid.nx * grid.ny };
+  const pressureRuns = runsOf(pressureActive, grid.nx, grid.ny).runs;
+  const parts = [activeRuns(ops[0]), activeRuns(ops[1]), pressureRuns];
+  const support = new Int32Array(parts[0].length + parts[1].length + parts[2].length);
+  let k = 0;
+  [0, nu, nu + nv].forEach((offset, p) => { for (const c of parts[p]) support[k++] = c + offset; });
+  return {
+    grid, ports, ops, merged, pressureActive, offsetV: nu, offsetP: nu + nv, size: nu + nv + grid.nx * grid.ny,
+    pressureRuns, support,
+  };
 }
 
 /** Views of the three blocks of an unknown-sized vector. */
@@ -56,8 +73,12 @@ export function applySaddlePoint(sys: SaddlePointSystem, z: Float64Array, out: F
   applyCombined(sys.ops[0], zu, ou, beta);
   applyCombined(sys.ops[1], zv, ov, beta);
   addDivergenceTranspose(sys.grid, sys.ports, sys.merged, zp, ou, ov, -1);
-  const active = sys.pressureActive;
-  for (let c = 0; c < op.length; c++) op[c] = active[c] && beta !== 0 ? -beta * op[c] : 0;
+  // Off the pressure cells op is 0 (merged cells are cleared again by addDivergence).
+  const runs = sys.pressureRuns;
+  for (let k = 0; k < runs.length; k += 2) {
+    if (beta === 0) op.fill(0, runs[k], runs[k + 1]);
+    else for (let c = runs[k], end = runs[k + 1]; c < end; c++) op[c] = -beta * op[c];
+  }
   addDivergence(sys.grid, sys.ports, sys.merged, zu, zv, op, -1);
 }
 
@@ -76,22 +97,18 @@ export function preconditionSaddlePoint(
   schur.apply(rp, zp);
 }
 
-/** out = A x − beta·out on active volumes, 0 elsewhere (the Operator5 product fused with the update). */
+/** out = A x − beta·out on active volumes (the Operator5 product fused with the update); other entries are not written. */
 function applyCombined(op: Operator5, x: Float64Array, out: Float64Array, beta: number): void {
-  const { n1, n2, gx, gy, diag, active } = op;
-  const sx = n1 + 1;
-  for (let j = 0; j < n2; j++) {
-    const row = j * n1;
-    const rowx = j * sx;
-    for (let i = 0; i < n1; i++) {
-      const c = row + i;
-      if (!active[c]) {
-        out[c] = 0;
-        continue;
-      }
+  const { n1, gx, gy, diag } = op;
+  const runs = activeRuns(op);
+  for (let k = 0; k < runs.length; k += 2) {
+    const end = runs[k + 1];
+    const j = (runs[k] / n1) | 0; // gx index of the face left of volume c is c + j
+    for (let c = runs[k]; c < end; c++) {
+      const f = c + j;
       let s = diag[c] * x[c];
-      const w = gx[rowx + i];
-      const e = gx[rowx + i + 1];
+      const w = gx[f];
+      const e = gx[f + 1];
       const so = gy[c];
       const no = gy[c + n1];
       if (w !== 0) s -= w * x[c - 1];

@@ -20,6 +20,7 @@
  * Both parts are symmetric positive definite, as MINRES needs.
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { runsOf } from '../grid/fluid-runs';
 import { buildHierarchy, vcycle, type Hierarchy } from '../multigrid/cycle';
 import { finishOperator, type Operator5 } from '../multigrid/operator';
 import type { CellMerging } from './cell-merging';
@@ -106,13 +107,16 @@ export function cahouetChabard(input: SchurInput): SchurPreconditioner {
   for (let k = 0; k < merging.cell.length; k++) stokes[merging.into[k]] += stokes[merging.cell[k]];
   for (let c = 0; c < n; c++) stokes[c] = active[c] && stokes[c] > 0 ? 1 / stokes[c] : 0;
 
+  const runs = runsOf(active, grid.nx, grid.ny).runs;
+  const merged = merging.cell;
   return {
     poisson,
     hierarchy,
     stokesInverse: stokes,
     apply(r, z) {
-      vcycle(hierarchy, r, z);
-      for (let c = 0; c < n; c++) z[c] = active[c] ? z[c] + stokes[c] * r[c] : 0;
+      vcycle(hierarchy, r, z); // 0 off the fluid cells
+      for (let k = 0; k < runs.length; k += 2) for (let c = runs[k], end = runs[k + 1]; c < end; c++) z[c] += stokes[c] * r[c];
+      for (let k = 0; k < merged.length; k++) z[merged[k]] = 0;
     },
   };
 }

@@ -103,6 +103,7 @@ export function solveFlow(problem: FlowProblem, options: FlowOptions = {}): Flow
     {
       tolerance: options.tolerance ?? 1e-9,
       maxIterations: options.maxIterations ?? 500,
+      support: sys.support,
       onIteration: (it, rel) => {
         options.onIteration?.(it, rel);
         if (options.shouldStop?.()) throw new FlowCancelled();
