@@ -13,7 +13,7 @@ export interface PlotSeries {
   dashed?: boolean;
 }
 
-const M = { left: 62, right: 14, top: 12, bottom: 36 };
+const M = { left: 50, right: 14, top: 8, bottom: 36 };
 
 /**
  * Several series over one x axis, both axes with round ticks in one display unit each (the app's unit
@@ -23,8 +23,15 @@ const M = { left: 62, right: 14, top: 12, bottom: 36 };
 @Component({
   selector: 'osm-series-plot',
   template: `
-    <svg [attr.width]="width()" [attr.height]="height()" role="img" [attr.aria-label]="ariaLabel()">
-      <g [attr.transform]="'translate(' + m.left + ',' + m.top + ')'">
+    @if (series().length > 1) {
+      <div class="legend" aria-hidden="true">
+        @for (p of paths(); track p.label) {
+          <span class="key"><svg width="20" height="8"><line [class]="'line tone-' + p.tone" [class.dashed]="p.dashed" x1="0" x2="20" y1="4" y2="4" /></svg>{{ p.label }}</span>
+        }
+      </div>
+    }
+    <svg [attr.width]="width()" [attr.height]="svgHeight()" role="img" [attr.aria-label]="ariaLabel()">
+      <g [attr.transform]="'translate(' + left() + ',' + m.top + ')'">
         @for (t of yTicks().ticks; track t.value) {
           <line class="grid" x1="0" [attr.x2]="innerW()" [attr.y1]="y()(t.value)" [attr.y2]="y()(t.value)" />
           <text class="tick" x="-6" [attr.y]="y()(t.value)" text-anchor="end" dominant-baseline="central">{{ t.label }}</text>
@@ -42,18 +49,9 @@ const M = { left: 62, right: 14, top: 12, bottom: 36 };
           <path class="line" [class]="'line tone-' + p.tone" [class.dashed]="p.dashed" [attr.d]="p.d" [attr.data-series]="p.label" />
         }
         <text class="label" [attr.x]="innerW()" [attr.y]="innerH() + 31" text-anchor="end">{{ xTitle() }}{{ xTicks().unit ? ' (' + xTicks().unit + ')' : '' }}</text>
-        <text class="label" [attr.transform]="'translate(' + (-m.left + 12) + ',' + innerH() / 2 + ') rotate(-90)'" text-anchor="middle">
+        <text class="label" [attr.transform]="'translate(' + (12 - left()) + ',' + innerH() / 2 + ') rotate(-90)'" text-anchor="middle">
           {{ yTitle() }}{{ yTicks().unit ? ' (' + yTicks().unit + ')' : '' }}
         </text>
-        @if (series().length > 1) {
-          <g class="legend" [attr.transform]="'translate(' + (innerW() - legendWidth()) + ',4)'">
-            <rect x="-6" y="-4" [attr.width]="legendWidth() + 4" [attr.height]="series().length * 15 + 4" rx="3" />
-            @for (p of paths(); track p.label; let k = $index) {
-              <line [class]="'line tone-' + p.tone" [class.dashed]="p.dashed" x1="0" x2="18" [attr.y1]="k * 15 + 6" [attr.y2]="k * 15 + 6" />
-              <text x="24" [attr.y]="k * 15 + 6" dominant-baseline="central">{{ p.label }}</text>
-            }
-          </g>
-        }
       </g>
     </svg>
   `,
@@ -71,8 +69,9 @@ const M = { left: 62, right: 14, top: 12, bottom: 36 };
     .tone-tertiary { stroke: var(--mat-sys-tertiary); }
     .tone-secondary { stroke: var(--mat-sys-secondary); }
     .tone-neutral { stroke: var(--mat-sys-on-surface-variant); }
-    .legend rect { fill: var(--mat-sys-surface); opacity: 0.9; stroke: var(--mat-sys-outline-variant); }
-    .legend text { fill: var(--mat-sys-on-surface); }
+    .legend { display: flex; flex-wrap: wrap; gap: 2px 14px; justify-content: flex-end; font-size: 11px; height: 18px; }
+    .key { display: inline-flex; align-items: center; gap: 5px; white-space: nowrap; }
+    .key svg { display: inline; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -90,10 +89,13 @@ export class SeriesPlot {
 
   protected readonly m = M;
   protected readonly width = signal(480);
-  protected readonly innerW = computed(() => Math.max(40, this.width() - M.left - M.right));
-  protected readonly innerH = computed(() => Math.max(40, this.height() - M.top - M.bottom));
+  /** Room for the y tick labels (about 6.2 px a character) and the axis title. */
+  protected readonly left = computed(() => Math.max(M.left, 30 + 6.2 * Math.max(0, ...this.yTicks().ticks.map((t) => t.label.length))));
+  protected readonly innerW = computed(() => Math.max(40, this.width() - this.left() - M.right));
+  /** The whole height less the legend's row above the plot. */
+  protected readonly svgHeight = computed(() => this.height() - (this.series().length > 1 ? 18 : 0));
+  protected readonly innerH = computed(() => Math.max(40, this.svgHeight() - M.top - M.bottom));
   protected readonly ariaLabel = computed(() => `${this.yTitle()} against ${this.xTitle()}: ${this.series().map((s) => s.label).join(', ')}`);
-  protected readonly legendWidth = computed(() => 30 + 6.2 * Math.max(...this.series().map((s) => s.label.length)));
 
   private readonly extents = computed(() => {
     let x0 = Infinity, x1 = -Infinity, y0 = Infinity, y1 = -Infinity;
@@ -111,13 +113,15 @@ export class SeriesPlot {
   });
 
   protected readonly x = computed(() => d3.scaleLinear().domain(this.extents().x).range([0, this.innerW()]));
-  protected readonly y = computed(() => d3.scaleLinear().domain(this.extents().y).nice(5).range([this.innerH(), 0]));
+  /** The y scale's domain alone (its ticks set the left margin, which sets the x range: no cycle). */
+  private readonly yDomain = computed(() => d3.scaleLinear().domain(this.extents().y).nice(5).domain());
+  protected readonly y = computed(() => d3.scaleLinear().domain(this.yDomain()).range([this.innerH(), 0]));
   protected readonly xTicks = computed(() => {
     const [lo, hi] = this.x().domain();
     return rangeTicks(lo, hi, this.xDimension(), Math.max(2, Math.round(this.innerW() / 90)));
   });
   protected readonly yTicks = computed(() => {
-    const [lo, hi] = this.y().domain();
+    const [lo, hi] = this.yDomain();
     return rangeTicks(lo, hi, this.yDimension(), 4);
   });
   protected readonly zeroY = computed(() => {

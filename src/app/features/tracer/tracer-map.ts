@@ -76,6 +76,8 @@ export class TracerMap {
   /** x0, y0, x1, y1, ... (m); NaN for particles that left by a port. */
   readonly particles = input<Float32Array | null>(null);
   readonly drawMode = input<DrawMode>(null);
+  /** Bounds [x0, y0, x1, y1] (m) to fit instead of the whole layout. */
+  readonly focus = input<readonly [number, number, number, number] | null>(null);
   readonly ariaLabel = input('Tracer map');
   /** A finished drag in a draw mode: its two ends (m). */
   readonly drawn = output<{ mode: Exclude<DrawMode, null>; a: Vec; b: Vec }>();
@@ -89,7 +91,9 @@ export class TracerMap {
   /** Fit of the layout: X = ox + k x, Y = oy − k y. */
   private readonly view = computed(() => {
     let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
-    for (const ring of this.outline()) for (const [x, y] of ring) {
+    const focus = this.focus();
+    if (focus) [x0, y0, x1, y1] = focus;
+    else for (const ring of this.outline()) for (const [x, y] of ring) {
       x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y);
     }
     if (!Number.isFinite(x0)) [x0, y0, x1, y1] = [0, 0, 1e-3, 1e-3];
@@ -217,15 +221,15 @@ export class TracerMap {
     if (!ctx || !pts) return;
     const { k, ox, oy } = this.view();
     ctx.fillStyle = 'rgba(255, 255, 255, 0.95)';
-    ctx.strokeStyle = 'rgba(20, 20, 20, 0.9)';
-    ctx.lineWidth = 0.8;
+    ctx.strokeStyle = 'rgba(20, 20, 20, 0.7)';
+    ctx.lineWidth = 0.6;
     ctx.beginPath();
     for (let i = 0; i < pts.length; i += 2) {
       const x = pts[i];
       if (x !== x) continue;
       const X = ox + k * x, Y = oy - k * pts[i + 1];
-      ctx.moveTo(X + 2, Y);
-      ctx.arc(X, Y, 2, 0, 2 * Math.PI);
+      ctx.moveTo(X + 1.7, Y);
+      ctx.arc(X, Y, 1.7, 0, 2 * Math.PI);
     }
     ctx.fill();
     ctx.stroke();

@@ -85,9 +85,11 @@ export class TracerTab {
   protected readonly running = signal(false);
   protected readonly progress = signal<AnalysisProgress | null>(null);
   protected readonly error = signal<string | null>(null);
-  protected readonly result = signal<{ run: TraceRun; document: DesignDocument; pageMs: number } | null>(null);
+  protected readonly result = signal<{ run: TraceRun; document: DesignDocument; pageMs: number; labels: string[] } | null>(null);
   protected readonly frame = signal(0);
   protected readonly playing = signal(false);
+  /** Map view: the whole layout, or the part from the injection to the detector. */
+  protected readonly zoomed = signal(false);
   protected readonly mapHeight = 340;
 
   protected readonly outline = computed(() => fluidOutline(this.document().shapes));
@@ -133,6 +135,20 @@ export class TracerTab {
     }
   });
 
+  /** Bounds of the injection and the detector, with room around them: the map's close view. */
+  protected readonly focus = computed<[number, number, number, number] | null>(() => {
+    const inj = this.shownInjection(), det = this.detector();
+    const pts: Vec[] = [];
+    if (inj?.kind === 'line') pts.push(inj.from, inj.to);
+    else if (inj) pts.push(...inj.polygon);
+    if (det) pts.push(det.from, det.to);
+    if (pts.length < 2) return null;
+    const xs = pts.map((p) => p[0]), ys = pts.map((p) => p[1]);
+    const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)];
+    const pad = 0.25 * Math.max(x1 - x0, y1 - y0);
+    return [x0 - pad, y0 - pad, x1 + pad, y1 + pad];
+  });
+
   // ---- the run, as shown
   protected readonly trace = computed(() => this.result()?.run.trace ?? null);
   protected readonly durations = computed(() => this.result()?.run.durations ?? []);
@@ -158,8 +174,7 @@ export class TracerTab {
   protected readonly phaseLabel = computed(() => {
     const r = this.result();
     if (!r) return '';
-    const label = r.run.designs.length > 1 ? (this.phases()[this.phaseIndex()]?.label ?? `phase ${this.phaseIndex() + 1}`) : '';
-    return label;
+    return r.run.designs.length > 1 ? (r.labels[this.phaseIndex()] ?? `phase ${this.phaseIndex() + 1}`) : '';
   });
   protected readonly alive = computed(() => {
     const f = this.current();
@@ -333,7 +348,8 @@ export class TracerTab {
       if (outcome.error.code !== 'cancelled') this.error.set(outcome.error.message);
       return;
     }
-    this.result.set({ run: outcome.run, document: doc, pageMs: performance.now() - started });
+    const labels = (r.request.phases ?? []).map((p, k) => p.label ?? `phase ${k + 1}`);
+    this.result.set({ run: outcome.run, document: doc, pageMs: performance.now() - started, labels });
     this.frame.set(0);
     this.playing.set(true);
   }
@@ -357,17 +373,23 @@ export class TracerTab {
     return Math.sqrt(v);
   }
 
+  /** 2.426 × 10⁻⁴ */
   protected sci(v: number): string {
-    return v.toExponential(3).replace('e', ' × 10^').replace('^+', '^');
+    const [m, e] = v.toExponential(3).split('e');
+    const sup = e.replace('+', '').replace('-', '⁻').replace(/\d/g, (d) => '⁰¹²³⁴⁵⁶⁷⁸⁹'[Number(d)]);
+    return `${m} × 10${sup}`;
   }
 
-  /** Each phase's label and duration as run ("loading 30.8 ms + dispensing 147 ms (until past the detector)"). */
-  protected readonly durationsText = computed(() => {
+  /** Each phase as run: its name and duration (the last maybe chosen to run until the band passed the detector). */
+  protected readonly phaseRows = computed(() => {
     const r = this.result();
-    if (!r) return '';
-    const labels = r.run.designs.length > 1 ? this.phases().map((p) => p.label ?? '') : [''];
-    const parts = r.run.durations.map((d, k) => `${labels[k] ? labels[k] + ' ' : ''}${formatQuantity(d, 'time', { digits: 3 })}`);
-    return parts.join(' + ') + (r.run.automatic ? ' (until past the detector)' : '');
+    if (!r) return [];
+    const n = r.run.durations.length;
+    return r.run.durations.map((d, k) => {
+      const name = n > 1 ? (r.labels[k] ?? `phase ${k + 1}`) : 'followed for';
+      const auto = r.run.automatic && k === n - 1 ? ', until past the detector' : '';
+      return { label: name.charAt(0).toUpperCase() + name.slice(1), text: `${formatQuantity(d, 'time', { digits: 3 })}${auto}` };
+    });
   });
 
   protected newSeed(): void {
