@@ -56,12 +56,13 @@ function solverBytes(grid: CutCellGrid, active: Uint8Array): number {
     // The finest level's faces are the grid's apertures when every fluid cell is active (counted with the grid).
     const shared = level.gx === grid.apertureX;
     bytes += (shared ? 0 : level.gx.byteLength + level.gy.byteLength) + level.reaction.byteLength + level.boundary.byteLength +
-      level.active.byteLength + level.diag.byteLength + (level.runs?.byteLength ?? 0);
+      level.active.byteLength + level.diag.byteLength + (level.inverseDiag?.byteLength ?? 0) +
+      (level.runs?.byteLength ?? 0) + (level.rowRuns?.byteLength ?? 0);
   }
-  for (const arrays of [mg.hierarchy.b, mg.hierarchy.x, mg.hierarchy.r]) for (const a of arrays) bytes += a.byteLength;
+  for (const arrays of [mg.hierarchy.b, mg.hierarchy.x]) for (const a of arrays) bytes += a.byteLength;
   const c = mg.hierarchy.coarsest;
   bytes += c.unknowns * (c.bandwidth + 2) * 8;
-  bytes += 6 * n * 8; // b, x (the solution) and CG's r, z, p, q
+  bytes += 5 * n * 8; // b, x (the solution) and CG's r, p, q (q also holds z)
   bytes += n * 4; // the component labels the pieces are read from (kept by the discretisation)
   return bytes;
 }

@@ -44,7 +44,8 @@ export function unitExtents(op: Operator5, distance?: Float64Array): Extents {
 export function coarsenWithExtents(fine: Operator5, fineExtents: Extents): { op: Operator5; extents: Extents } {
   const n1 = Math.ceil(fine.n1 / 2);
   const n2 = Math.ceil(fine.n2 / 2);
-  const op = createOperator(n1, n2);
+  const withReaction = fine.reaction.length > 0;
+  const op = createOperator(n1, n2, { reaction: withReaction });
   const ex = new Float64Array(n1 * n2);
   const ey = new Float64Array(n1 * n2);
   const length = new Float64Array(n1 * n2);
@@ -67,7 +68,7 @@ export function coarsenWithExtents(fine: Operator5, fineExtents: Extents): { op:
       const c = at(i, j);
       if (c < 0) continue;
       const C = (i >> 1) + (j >> 1) * n1;
-      op.reaction[C] += fine.reaction[c];
+      if (withReaction) op.reaction[C] += fine.reaction[c];
       const g = fine.boundary[c];
       if (g === 0) continue;
       // Across which axis does the boundary lie? The one on which this volume misses a link.

@@ -1,4 +1,4 @@
-import { activeRuns, createOperator, finishOperator, type Operator5 } from './operator';
+import { activeRuns, createOperator, finishOperator, prepared, type Operator5 } from './operator';
 
 /**
  * The operator on the grid of 2×2 aggregates (coarse volume (I, J) covers fine (2I..2I+1, 2J..2J+1)).
@@ -13,26 +13,30 @@ import { activeRuns, createOperator, finishOperator, type Operator5 } from './op
 export function coarsen(fine: Operator5): Operator5 {
   const n1 = Math.ceil(fine.n1 / 2);
   const n2 = Math.ceil(fine.n2 / 2);
-  const op = createOperator(n1, n2);
-  const fn1 = fine.n1;
-  const csx = n1 + 1;
+  const withReaction = fine.reaction.length > 0;
+  const op = createOperator(n1, n2, { reaction: withReaction });
+  const { active, gx, gy, reaction, boundary } = op;
+  const fn1 = fine.n1, fsx = fn1 + 1, csx = n1 + 1;
+  const fineReaction = fine.reaction, fineBoundary = fine.boundary, fineGx = fine.gx, fineGy = fine.gy;
   // Only faces within the runs of active volumes (and the face just after each run) can be open.
   const runs = activeRuns(fine);
   for (let k = 0; k < runs.length; k += 2) {
     const first = runs[k], end = runs[k + 1];
     const j = (first / fn1) | 0, J = j >> 1;
     const i0 = first - j * fn1, i1 = end - j * fn1;
+    const row = j * fn1, coarseRow = J * n1;
     for (let i = i0; i < i1; i++) {
-      const c = i + j * fn1;
-      const C = (i >> 1) + J * n1;
-      op.active[C] = 1;
-      op.reaction[C] += fine.reaction[c];
-      op.boundary[C] += 0.5 * fine.boundary[c];
+      const c = row + i;
+      const C = coarseRow + (i >> 1);
+      active[C] = 1;
+      if (withReaction) reaction[C] += fineReaction[c];
+      const g = fineBoundary[c];
+      if (g !== 0) boundary[C] += 0.5 * g;
     }
     // Vertical faces on the coarse lines x = 2I·h (gx index of face i in row j is i + j(n1+1)).
-    for (let i = i0 + (i0 & 1); i <= i1; i += 2) op.gx[(i >> 1) + J * csx] += 0.5 * fine.gx[i + j * (fn1 + 1)];
+    for (let i = i0 + (i0 & 1); i <= i1; i += 2) gx[(i >> 1) + J * csx] += 0.5 * fineGx[i + j * fsx];
     // Horizontal faces on the coarse lines y = 2J·h: the face below each volume of an even row.
-    if ((j & 1) === 0) for (let i = i0; i < i1; i++) op.gy[(i >> 1) + J * n1] += 0.5 * fine.gy[i + j * fn1];
+    if ((j & 1) === 0) for (let i = i0; i < i1; i++) gy[coarseRow + (i >> 1)] += 0.5 * fineGy[row + i];
   }
   return finishOperator(op);
 }
@@ -59,5 +63,59 @@ export function prolongAdd(fine: Operator5, x: Float64Array, coarse: Operator5, 
     const j = (runs[k] / n1) | 0;
     const shift = (j >> 1) * cn1, row = j * n1;
     for (let c = runs[k]; c < runs[k + 1]; c++) x[c] += xc[shift + ((c - row) >> 1)];
+  }
+}
+
+/**
+ * The V-cycle's restriction of the residual r = b − A x right after a sweep that relaxed colour 1 last:
+ * the residual of a colour-1 volume is then 0 (its equation was just solved with its neighbours, all of
+ * colour 0, as they are now), so only colour-0 volumes are evaluated, each added to its parent in rc.
+ * Equal to `residual` then `restrict` up to the rounding of the colour-1 zeros. x must be finite everywhere.
+ */
+export function restrictResidual(fine: Operator5, x: Float64Array, b: Float64Array, coarse: Operator5, rc: Float64Array): void {
+  const cruns = activeRuns(coarse);
+  for (let k = 0; k < cruns.length; k += 2) rc.fill(0, cruns[k], cruns[k + 1]);
+  const { runs, rowRuns } = prepared(fine);
+  const { n1, n2, gx, gy, diag } = fine;
+  const cn1 = coarse.n1;
+  for (let j = 0; j < n2; j++) {
+    const row = j * n1, parents = (j >> 1) * cn1;
+    const shift = row - j; // (c − shift) & 1 is 0 on colour 0
+    const last = rowRuns[j + 1];
+    const inside = j > 0 && j < n2 - 1;
+    for (let k = rowRuns[j]; k < last; k += 2) {
+      const end = runs[k + 1];
+      for (let c = runs[k] + ((runs[k] - shift) & 1); c < end; c += 2) {
+        const f = c + j;
+        let s = b[c] - diag[c] * x[c];
+        if (inside) s = s + gx[f] * x[c - 1] + gx[f + 1] * x[c + 1] + gy[c] * x[c - n1] + gy[c + n1] * x[c + n1];
+        else {
+          const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
+          if (w !== 0) s += w * x[c - 1];
+          if (e !== 0) s += e * x[c + 1];
+          if (so !== 0) s += so * x[c - n1];
+          if (no !== 0) s += no * x[c + n1];
+        }
+        rc[parents + ((c - row) >> 1)] += s;
+      }
+    }
+  }
+}
+
+/**
+ * The V-cycle's prolongation before a sweep that relaxes colour 1 first: that sweep overwrites every colour-1
+ * value without reading it, so only colour-0 volumes receive x_coarse of their parent (`prolongAdd` otherwise).
+ */
+export function prolongCorrection(fine: Operator5, x: Float64Array, coarse: Operator5, xc: Float64Array): void {
+  const { runs, rowRuns } = prepared(fine);
+  const { n1, n2 } = fine;
+  const cn1 = coarse.n1;
+  for (let j = 0; j < n2; j++) {
+    const row = j * n1, parents = (j >> 1) * cn1;
+    const shift = row - j;
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      const end = runs[k + 1];
+      for (let c = runs[k] + ((runs[k] - shift) & 1); c < end; c += 2) x[c] += xc[parents + ((c - row) >> 1)];
+    }
   }
 }

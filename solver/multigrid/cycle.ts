@@ -1,16 +1,18 @@
-import { coarsen, prolongAdd, restrict } from './coarsen';
+import { coarsen, prolongCorrection, restrictResidual } from './coarsen';
 import { coarsenWithExtents, unitExtents } from './coarsen-extents';
 import { bandedCost, coarsestSolver, type CoarsestSolver } from './banded';
-import { residual, type Operator5 } from './operator';
-import { smoothRedBlack } from './smooth';
+import { activeRuns, zeroInactive, type Operator5 } from './operator';
+import { smoothRedBlack, smoothRedBlackFromZero } from './smooth';
 
 /** Levels of a geometric multigrid hierarchy, finest first, with their work arrays. */
 export interface Hierarchy {
   levels: Operator5[];
-  /** Right-hand side, correction and residual arrays per level (index 0 unused for b and x: the caller's). */
+  /**
+   * Right-hand side and correction per level (index 0 unused: the caller's). The residual needs no array of its
+   * own: it goes straight into the next level's right-hand side (restrictResidual).
+   */
   b: Float64Array[];
   x: Float64Array[];
-  r: Float64Array[];
   coarsest: CoarsestSolver;
   /** Red–black sweeps before and after the coarse-grid correction. */
   sweeps: number;
@@ -27,8 +29,9 @@ const COARSEST_CELLS = 96;
 const COARSEST_FACTOR_COST = 2e5;
 
 function activeCount(op: Operator5): number {
+  const runs = activeRuns(op);
   let n = 0;
-  for (let c = 0; c < op.active.length; c++) n += op.active[c];
+  for (let k = 0; k < runs.length; k += 2) n += runs[k + 1] - runs[k];
   return n;
 }
 
@@ -54,16 +57,14 @@ export function buildHierarchy(fine: Operator5, sweeps = 2, coarsening: Coarseni
     levels.push(next);
     n = m;
   }
-  // Level 0's b and x are the caller's, and the coarsest level needs no residual: leave those empty.
-  const last = levels.length - 1;
+  // Level 0's b and x are the caller's: leave those empty.
   const size = (op: Operator5) => op.n1 * op.n2;
   return {
     levels,
     b: levels.map((op, l) => new Float64Array(l === 0 ? 0 : size(op))),
     x: levels.map((op, l) => new Float64Array(l === 0 ? 0 : size(op))),
-    r: levels.map((op, l) => new Float64Array(l === last ? 0 : size(op))),
     coarsest: coarsestSolver(levels[levels.length - 1]),
-    sweeps,
+    sweeps: Math.max(1, sweeps),
   };
 }
 
@@ -71,22 +72,33 @@ export function buildHierarchy(fine: Operator5, sweeps = 2, coarsening: Coarseni
  * One V-cycle for A x = b on level `l`, starting from x = 0. Pre-smoothing relaxes red then black, post-smoothing
  * black then red, and the coarse correction is exact at the bottom, so the cycle is a symmetric positive definite
  * preconditioner (Briggs, Henson & McCormick, A Multigrid Tutorial, 2nd ed., SIAM 2000, ch. 3).
+ * x's entries off the active volumes are set to 0; b's there are not read.
  */
 export function vcycle(h: Hierarchy, b: Float64Array, x: Float64Array, l = 0): void {
-  const op = h.levels[l];
+  zeroInactive(h.levels[l], x);
+  cycleFromZero(h, b, x, l);
+}
+
+/**
+ * The V-cycle of `vcycle` for an x that is already 0 (or any finite value) off the active volumes: its active
+ * entries are overwritten without being read. The first sweep starts from zero (red is b / d), the residual
+ * after pre-smoothing is evaluated on red volumes only (black ones are 0 after a black half-sweep) and summed
+ * into the coarse right-hand side, and the correction is added on red volumes only (post-smoothing starts by
+ * overwriting black): the same cycle as with full residual and transfer passes, up to rounding.
+ */
+export function cycleFromZero(h: Hierarchy, b: Float64Array, x: Float64Array, l = 0): void {
   if (l === h.levels.length - 1) {
     h.coarsest.solve(b, x);
     return;
   }
-  x.fill(0);
-  for (let s = 0; s < h.sweeps; s++) smoothRedBlack(op, x, b, 0);
-  const r = h.r[l];
-  residual(op, x, b, r);
+  const op = h.levels[l];
+  smoothRedBlackFromZero(op, x, b);
+  for (let s = 1; s < h.sweeps; s++) smoothRedBlack(op, x, b, 0);
   const coarse = h.levels[l + 1];
   const bc = h.b[l + 1];
   const xc = h.x[l + 1];
-  restrict(op, r, coarse, bc);
-  vcycle(h, bc, xc, l + 1);
-  prolongAdd(op, x, coarse, xc);
+  restrictResidual(op, x, b, coarse, bc);
+  cycleFromZero(h, bc, xc, l + 1);
+  prolongCorrection(op, x, coarse, xc);
   for (let s = 0; s < h.sweeps; s++) smoothRedBlack(op, x, b, 1);
 }

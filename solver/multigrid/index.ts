@@ -1,13 +1,13 @@
 export { apply, createOperator, finishOperator, residual, type Operator5 } from './operator';
-export { coarsen, prolongAdd, restrict } from './coarsen';
-export { buildHierarchy, vcycle, type Coarsening, type Hierarchy } from './cycle';
+export { coarsen, prolongAdd, prolongCorrection, restrict, restrictResidual } from './coarsen';
+export { buildHierarchy, cycleFromZero, vcycle, type Coarsening, type Hierarchy } from './cycle';
 export { coarsenWithExtents, unitExtents, type Extents } from './coarsen-extents';
-export { pcg, dot, type KrylovResult, type PcgOptions } from './pcg';
-export { smoothRedBlack } from './smooth';
+export { pcg, pcgWorkspace, dot, type KrylovResult, type PcgOptions, type PcgWorkspace } from './pcg';
+export { smoothRedBlack, smoothRedBlackFromZero } from './smooth';
 
-import { buildHierarchy, vcycle, type Hierarchy } from './cycle';
+import { buildHierarchy, cycleFromZero, type Hierarchy } from './cycle';
 import type { Operator5 } from './operator';
-import { pcg, type KrylovResult, type PcgOptions } from './pcg';
+import { pcg, pcgWorkspace, type KrylovResult, type PcgOptions } from './pcg';
 
 /** A multigrid-preconditioned conjugate-gradient solver for one operator, reusable for many right-hand sides. */
 export interface MultigridPcg {
@@ -15,11 +15,15 @@ export interface MultigridPcg {
   solve(b: Float64Array, x: Float64Array, options?: Omit<PcgOptions, 'precondition'>): KrylovResult;
 }
 
-/** Builds the hierarchy of `op` once (`sweeps` red–black sweeps before and after each coarse correction). */
+/**
+ * Builds the hierarchy of `op` and the conjugate-gradient work vectors once (`sweeps` red–black sweeps before and
+ * after each coarse correction). pcg keeps its vectors 0 off the active volumes, so the cycle need not clear them.
+ */
 export function multigridPcg(op: Operator5, options: { sweeps?: number } = {}): MultigridPcg {
   const hierarchy = buildHierarchy(op, options.sweeps ?? 2);
-  const precondition = (r: Float64Array, z: Float64Array) => vcycle(hierarchy, r, z);
-  return { hierarchy, solve: (b, x, opts = {}) => pcg(op, b, x, { ...opts, precondition }) };
+  const workspace = pcgWorkspace(op);
+  const precondition = (r: Float64Array, z: Float64Array) => cycleFromZero(hierarchy, r, z);
+  return { hierarchy, solve: (b, x, opts = {}) => pcg(op, b, x, { ...opts, precondition, workspace }) };
 }
 
 /** Solves A x = b by conjugate gradients preconditioned with one multigrid V-cycle. */

@@ -5,7 +5,7 @@
  *   (A x)_c = (Σ_faces g_f + reaction_c + boundary_c) x_c − Σ_faces g_f x_neighbour
  *
  * - `gx[(i) + j·(n1+1)]` is the conductance of the face between volumes (i−1, j) and (i, j);
- *   faces on the box edge and faces next to an inactive volume are 0.
+ *   the faces of an active volume on the box edge or next to an inactive volume are 0.
  * - `gy[i + j·n1]` likewise for the face between (i, j−1) and (i, j), length n1·(n2+1).
  * - `reaction` holds terms that scale with the volume (Brinkman friction α·area); `boundary` holds Dirichlet
  *   conductances (a port face at a known value). Both are ≥ 0.
@@ -19,26 +19,32 @@ export interface Operator5 {
   n2: number;
   gx: Float64Array;
   gy: Float64Array;
+  /** Per volume, or empty (length 0) when the operator has no reaction term. */
   reaction: Float64Array;
   boundary: Float64Array;
   active: Uint8Array;
   /** Σ g + reaction + boundary per volume; filled by `finishOperator`. */
   diag: Float64Array;
+  /** 1 / diag on active volumes, 0 elsewhere; filled by `finishOperator` (relaxation multiplies by it). */
+  inverseDiag?: Float64Array;
   /**
    * Runs of active volumes, row by row: pairs [first, end) of volume indices. Filled by `finishOperator`
    * (or on first use); the kernels loop over these only, so solid regions of the box cost nothing.
    */
   runs?: Int32Array;
+  /** rowRuns[j] is the index in `runs` of the first run of row j; rowRuns[n2] = runs.length. */
+  rowRuns?: Int32Array;
 }
 
-export function createOperator(n1: number, n2: number): Operator5 {
+/** An operator of n1 × n2 inactive volumes; `reaction: false` leaves out the reaction term (length 0). */
+export function createOperator(n1: number, n2: number, options: { reaction?: boolean } = {}): Operator5 {
   const n = n1 * n2;
   return {
     n1,
     n2,
     gx: new Float64Array((n1 + 1) * n2),
     gy: new Float64Array(n1 * (n2 + 1)),
-    reaction: new Float64Array(n),
+    reaction: new Float64Array(options.reaction === false ? 0 : n),
     boundary: new Float64Array(n),
     active: new Uint8Array(n),
     diag: new Float64Array(n),
@@ -46,70 +52,105 @@ export function createOperator(n1: number, n2: number): Operator5 {
 }
 
 /**
- * Clears conductances that touch inactive volumes or the box edge, and computes the diagonal.
- * A volume whose diagonal is zero (no face, no reaction, no boundary) is made inactive.
+ * Clears the conductances of active volumes' faces that lead to an inactive volume or out of the box, and
+ * computes the diagonal, its inverse and the runs of active volumes: the runs from `active` alone, then the
+ * rest on the runs only, so the solid part of the box costs one byte read per volume. A volume whose
+ * diagonal is zero (no face, no reaction, no boundary) is made inactive. On inactive volumes diag and
+ * inverseDiag are 0; faces between two inactive volumes are left as they are (nothing reads them). Values that
+ * do not change are not written again (the face arrays may be the grid's own).
  */
 export function finishOperator(op: Operator5): Operator5 {
-  const { n1, n2, gx, gy, reaction, boundary, active, diag } = op;
-  // One pass: a face keeps its conductance only between two active volumes inside the box.
-  for (let j = 0; j < n2; j++) {
-    for (let i = 0; i < n1; i++) {
-      const c = i + j * n1;
-      const f = c + j; // face left of c in gx
-      if (!active[c]) {
-        gx[f] = 0;
-        gx[f + 1] = 0;
-        gy[c] = 0;
-        gy[c + n1] = 0;
-        diag[c] = 0;
-        continue;
-      }
-      const w = i > 0 && active[c - 1] ? gx[f] : 0;
-      const e = i < n1 - 1 && active[c + 1] ? gx[f + 1] : 0;
-      const so = j > 0 && active[c - n1] ? gy[c] : 0;
-      const no = j < n2 - 1 && active[c + n1] ? gy[c + n1] : 0;
-      gx[f] = w;
-      gx[f + 1] = e;
-      gy[c] = so;
-      gy[c + n1] = no;
-      const d = w + e + so + no + reaction[c] + boundary[c];
-      if (d > 0) {
-        diag[c] = d;
-      } else {
-        active[c] = 0;
-        diag[c] = 0;
-      }
-    }
-  }
-  op.runs = findRuns(op);
+  findRuns(op);
+  if (!closeAndSum(op)) findRuns(op); // some volume had no conductance at all and was dropped
   return op;
 }
 
-function findRuns(op: Operator5): Int32Array {
-  const { n1, n2, active } = op;
-  let count = 0;
+/**
+ * The face, diagonal and inverse-diagonal work of finishOperator over the runs found by findRuns; false when a
+ * volume with a zero diagonal was made inactive (the runs are then out of date). Inside a run the left and
+ * right neighbours are active, at its ends they are not; only the vertical neighbours need looking up.
+ */
+function closeAndSum(op: Operator5): boolean {
+  const { n1, n2, gx, gy, reaction, boundary, active, diag } = op;
+  const runs = op.runs!, rowRuns = op.rowRuns!;
+  const inverse = new Float64Array(n1 * n2);
+  const withReaction = reaction.length > 0, withBoundary = boundary.length > 0;
+  let from = 0; // diag is 0 off the runs
+  let dropped = false;
   for (let j = 0; j < n2; j++) {
-    for (let i = 0; i < n1; i++) if (active[i + j * n1] && (i === 0 || !active[i - 1 + j * n1])) count++;
+    const below = j > 0, above = j < n2 - 1;
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      const first = runs[k], end = runs[k + 1];
+      if (first > from) diag.fill(0, from, first);
+      from = end;
+      // The faces at the ends of the run lead to an inactive volume or out of the box.
+      if (gx[first + j] !== 0) gx[first + j] = 0;
+      if (gx[end + j] !== 0) gx[end + j] = 0;
+      for (let c = first; c < end; c++) {
+        const f = c + j; // face left of c in gx
+        let so = gy[c], no = gy[c + n1];
+        if (so !== 0 && !(below && active[c - n1] !== 0)) gy[c] = so = 0;
+        if (no !== 0 && !(above && active[c + n1] !== 0)) gy[c + n1] = no = 0;
+        const d = gx[f] + gx[f + 1] + so + no + (withReaction ? reaction[c] : 0) + (withBoundary ? boundary[c] : 0);
+        if (d > 0) {
+          diag[c] = d;
+          inverse[c] = 1 / d;
+        } else {
+          active[c] = 0; // its faces are all 0 already (d is their sum)
+          diag[c] = 0;
+          dropped = true;
+        }
+      }
+    }
   }
-  const runs = new Int32Array(2 * count);
-  let k = 0;
+  if (from < diag.length) diag.fill(0, from);
+  op.inverseDiag = inverse;
+  return !dropped;
+}
+
+/** Runs and their first index per row from `active` alone (for an operator that was not finished). */
+export function findRuns(op: Operator5): void {
+  const { n1, n2, active } = op;
+  const runs: number[] = [];
+  const rowRuns = new Int32Array(n2 + 1);
   for (let j = 0; j < n2; j++) {
+    rowRuns[j] = runs.length;
     const row = j * n1;
     let i = 0;
     while (i < n1) {
       while (i < n1 && !active[row + i]) i++;
       if (i === n1) break;
-      runs[k++] = row + i;
+      runs.push(row + i);
       while (i < n1 && active[row + i]) i++;
-      runs[k++] = row + i;
+      runs.push(row + i);
     }
   }
-  return runs;
+  rowRuns[n2] = runs.length;
+  op.runs = Int32Array.from(runs);
+  op.rowRuns = rowRuns;
 }
 
 /** The runs of active volumes (see Operator5.runs), found once. */
 export function activeRuns(op: Operator5): Int32Array {
-  return op.runs ?? (op.runs = findRuns(op));
+  if (!op.runs || !op.rowRuns) findRuns(op);
+  return op.runs!;
+}
+
+/** What the kernels read besides the operator's arrays: the runs, their first index per row, 1 / diag. */
+export interface Prepared {
+  runs: Int32Array;
+  rowRuns: Int32Array;
+  inverseDiag: Float64Array;
+}
+
+export function prepared(op: Operator5): Prepared {
+  const runs = activeRuns(op);
+  if (!op.inverseDiag) {
+    const { diag, active } = op;
+    op.inverseDiag = new Float64Array(diag.length);
+    for (let c = 0; c < diag.length; c++) if (active[c]) op.inverseDiag[c] = 1 / diag[c];
+  }
+  return { runs, rowRuns: op.rowRuns!, inverseDiag: op.inverseDiag };
 }
 
 /** (A x)_c on the active volumes only; inactive entries of `out` are left as they are. */

@@ -14,28 +14,34 @@ import { finishOperator, type Operator5 } from '../multigrid/operator';
 
 /**
  * The operator over the `active` cells. When every fluid cell is active its face arrays ARE the grid's
- * aperture arrays (finishOperator then only writes zeros over zeros: apertures next to solid cells and on
- * the border are 0 already), which saves 16 bytes a cell; otherwise they are copies, as finishOperator
- * closes the faces next to the excluded cells. Nothing writes to an operator's faces after that.
+ * aperture arrays (finishOperator then writes nothing into them: apertures next to solid cells and on the
+ * border are 0 already), which saves 16 bytes a cell; otherwise they are copies, as finishOperator closes the
+ * faces next to the excluded cells. Nothing writes to an operator's faces after that. `everyFluidCell`, when
+ * the caller knows it (ElectrodePieces.everyFluidCell), spares the pass that finds out. No reaction term.
  */
-export function laplaceOperator(grid: CutCellGrid, active: Uint8Array, conductance: Float64Array): Operator5 {
+export function laplaceOperator(grid: CutCellGrid, active: Uint8Array, conductance: Float64Array, everyFluidCell?: boolean): Operator5 {
   const n = grid.nx * grid.ny;
   const boundary = new Float64Array(n);
   const seg = grid.segments;
   for (let s = 0; s < seg.count; s++) if (seg.port[s] >= 0) boundary[seg.cell[s]] += conductance[s];
-  let everyFluidCell = true;
-  for (let c = 0; c < n && everyFluidCell; c++) if (grid.fraction[c] > 0 && !active[c]) everyFluidCell = false;
+  const shared = everyFluidCell ?? everyFluidCellActive(grid, active);
   const op: Operator5 = {
     n1: grid.nx,
     n2: grid.ny,
-    gx: everyFluidCell ? grid.apertureX : grid.apertureX.slice(),
-    gy: everyFluidCell ? grid.apertureY : grid.apertureY.slice(),
-    reaction: new Float64Array(n),
+    gx: shared ? grid.apertureX : grid.apertureX.slice(),
+    gy: shared ? grid.apertureY : grid.apertureY.slice(),
+    reaction: new Float64Array(0),
     boundary,
     active: active.slice(),
     diag: new Float64Array(n),
   };
   return finishOperator(op);
+}
+
+function everyFluidCellActive(grid: CutCellGrid, active: Uint8Array): boolean {
+  const { fraction } = grid;
+  for (let c = 0; c < active.length; c++) if (active[c] === 0 && fraction[c] > 0) return false;
+  return true;
 }
 
 /** b_c = Σ_{port pieces s in active cell c} g_s · value(port(s)); ports whose value is 0 add nothing. */

@@ -13,6 +13,8 @@ import type { CutCellGrid } from '../grid/cut-cell-grid';
 export interface ElectrodePieces {
   /** 1 for a fluid cell in a piece with at least one electrode (a port with a potential). */
   active: Uint8Array;
+  /** Whether that is every fluid cell (no piece is left out). */
+  everyFluidCell: boolean;
   /** Per port: whether it lies in a piece with an electrode (false also for ports on no fluid). */
   portReferenced: boolean[];
   /** Number of fluid pieces without an electrode that touch a port. */
@@ -34,10 +36,14 @@ export function electrodePieces(grid: CutCellGrid, components: FluidComponents, 
     if (ports[k].potential !== null) hasElectrode[piece] = 1;
   }
   const n = grid.nx * grid.ny;
+  const { fraction } = grid;
   const active = new Uint8Array(n);
+  let everyFluidCell = true;
   for (let c = 0; c < n; c++) {
-    const piece = label[c];
-    if (piece >= 0 && hasElectrode[piece] && grid.fraction[c] > 0) active[c] = 1;
+    const piece = label[c]; // ≥ 0 on fluid cells only (components.ts)
+    if (piece < 0) continue;
+    if (hasElectrode[piece] !== 0 && fraction[c] > 0) active[c] = 1;
+    else everyFluidCell = false;
   }
   const portReferenced = ports.map(() => false);
   for (let s = 0; s < seg.count; s++) {
@@ -47,5 +53,5 @@ export function electrodePieces(grid: CutCellGrid, components: FluidComponents, 
   }
   const floatingSeeds: number[] = [];
   for (let p = 0; p < components.count; p++) if (touched[p] && !hasElectrode[p]) floatingSeeds.push(components.seed[p]);
-  return { active, portReferenced, floatingPieces: floatingSeeds.length, floatingSeeds };
+  return { active, everyFluidCell, portReferenced, floatingPieces: floatingSeeds.length, floatingSeeds };
 }

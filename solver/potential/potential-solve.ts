@@ -73,7 +73,7 @@ export function solvePotential(
   const pieces = electrodePieces(grid, components, ports);
   const { active } = pieces;
   const conductance = portConductances(grid);
-  const op = laplaceOperator(grid, active, conductance);
+  const op = laplaceOperator(grid, active, conductance, pieces.everyFluidCell);
   const mg = multigridPcg(op, { sweeps: options.sweeps });
   const floating = ports.map((p, k) => (p.potential === null && pieces.portReferenced[k] ? k : -1)).filter((k) => k >= 0);
   const totalSolves = floating.length === 0 ? 1 : floating.length + 2;
@@ -130,14 +130,21 @@ export function solvePotential(
     run(values);
   }
 
+  // NaN off the runs of active cells (the operator's: a cell without any conductance would have been dropped).
   const potential = x;
-  for (let c = 0; c < n; c++) if (!active[c]) potential[c] = NaN;
+  const runs = op.runs!;
+  let from = 0;
+  for (let k = 0; k < runs.length; k += 2) {
+    potential.fill(NaN, from, runs[k]);
+    from = runs[k + 1];
+  }
+  potential.fill(NaN, from, n);
   const portCurrent = portFluxes(grid, active, conductance, values, potential, new Float64Array(ports.length));
   for (let k = 0; k < ports.length; k++) portCurrent[k] *= sigmaDepth;
   const portPotential = ports.map((p, k) => (pieces.portReferenced[k] ? values[k] : p.potential));
   return {
     potential,
-    active,
+    active: op.active,
     conductance,
     portPotential,
     portCurrent,

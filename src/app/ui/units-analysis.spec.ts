@@ -15,6 +15,10 @@ describe('units of the tracer and the double layer', () => {
     expect(value(formatQuantity(4.2e-10, 'diffusivity'), 'diffusivity')).toBeCloseTo(4.2e-10, 22);
     expect(displayUnit(1e-9, 'diffusivity')).toEqual({ label: 'm²/s', factor: 1 });
     expect(parseQuantity('1 m/s', 'diffusivity').ok).toBe(false);
+    // Bare numbers in the Tracer's fields take SI.
+    expect(parseQuantity('2e-10', 'diffusivity', { defaultUnit: 'm^2/s' })).toEqual({ ok: true, value: 2e-10 });
+    const mobility = parseQuantity('-2e-8', 'mobility', { defaultUnit: 'm^2/V*s' });
+    expect(mobility.ok && mobility.value).toBeCloseTo(-2e-8, 20);
   });
 
   it('reads and shows times', () => {

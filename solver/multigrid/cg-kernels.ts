@@ -1,0 +1,109 @@
+import { prepared, type Operator5 } from './operator';
+
+/**
+ * The vector work of preconditioned conjugate gradients (pcg.ts) on an Operator5, fused into few passes over
+ * the runs of active volumes: the search direction update with the product A p and pᵀAp, and the solution and
+ * residual update with ‖r‖². Entries off the active volumes are never written, so vectors that start at 0
+ * there stay 0; the stencils then carry no tests inside rows 1 … n2 − 2 (a closed face is 0 and every entry is
+ * finite), while the first and last rows, whose outer neighbours lie outside the arrays, keep them.
+ */
+
+/** q = A p on row j; returns Σ p_c q_c over the row. */
+function applyRow(op: Operator5, p: Float64Array, q: Float64Array, j: number): number {
+  const { n1, n2, gx, gy, diag } = op;
+  const runs = op.runs!, rowRuns = op.rowRuns!;
+  const last = rowRuns[j + 1];
+  let pq = 0;
+  if (j > 0 && j < n2 - 1) {
+    for (let k = rowRuns[j]; k < last; k += 2) {
+      const end = runs[k + 1];
+      for (let c = runs[k]; c < end; c++) {
+        const f = c + j; // gx index of the face left of c
+        const s = diag[c] * p[c] - gx[f] * p[c - 1] - gx[f + 1] * p[c + 1] - gy[c] * p[c - n1] - gy[c + n1] * p[c + n1];
+        q[c] = s;
+        pq += p[c] * s;
+      }
+    }
+    return pq;
+  }
+  for (let k = rowRuns[j]; k < last; k += 2) {
+    const end = runs[k + 1];
+    for (let c = runs[k]; c < end; c++) {
+      const f = c + j;
+      let s = diag[c] * p[c];
+      const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
+      if (w !== 0) s -= w * p[c - 1];
+      if (e !== 0) s -= e * p[c + 1];
+      if (so !== 0) s -= so * p[c - n1];
+      if (no !== 0) s -= no * p[c + n1];
+      q[c] = s;
+      pq += p[c] * s;
+    }
+  }
+  return pq;
+}
+
+/** p = z + β p on row j (p = z when β = 0, whatever p held). */
+function directionRow(runs: Int32Array, rowRuns: Int32Array, z: Float64Array, beta: number, p: Float64Array, j: number): void {
+  const last = rowRuns[j + 1];
+  if (beta === 0) {
+    for (let k = rowRuns[j]; k < last; k += 2) for (let c = runs[k], end = runs[k + 1]; c < end; c++) p[c] = z[c];
+    return;
+  }
+  for (let k = rowRuns[j]; k < last; k += 2) for (let c = runs[k], end = runs[k + 1]; c < end; c++) p[c] = z[c] + beta * p[c];
+}
+
+/**
+ * p ← z + β p, then q ← A p; returns pᵀq. The direction runs one row ahead of the product, which then finds
+ * p updated in every row it reads. q may be z's array: row j of z is read before row j of q is written.
+ */
+export function directionAndProduct(op: Operator5, z: Float64Array, beta: number, p: Float64Array, q: Float64Array): number {
+  const { runs, rowRuns } = prepared(op);
+  const n2 = op.n2;
+  directionRow(runs, rowRuns, z, beta, p, 0);
+  let pq = 0;
+  for (let j = 0; j < n2; j++) {
+    if (j + 1 < n2) directionRow(runs, rowRuns, z, beta, p, j + 1);
+    pq += applyRow(op, p, q, j);
+  }
+  return pq;
+}
+
+/** x ← x + α p, r ← r − α q; returns ‖r‖². */
+export function stepAndNorm(runs: Int32Array, alpha: number, p: Float64Array, q: Float64Array, x: Float64Array, r: Float64Array): number {
+  let rr = 0;
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      x[c] += alpha * p[c];
+      const rc = r[c] - alpha * q[c];
+      r[c] = rc;
+      rr += rc * rc;
+    }
+  }
+  return rr;
+}
+
+/** r = b − A x on the active volumes; returns [‖b‖², ‖r‖²] over them. */
+export function residualAndNorms(op: Operator5, x: Float64Array, b: Float64Array, r: Float64Array): [number, number] {
+  const { runs, rowRuns } = prepared(op);
+  let bb = 0, rr = 0;
+  for (let j = 0; j < op.n2; j++) {
+    applyRow(op, x, r, j);
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+        const rc = b[c] - r[c];
+        r[c] = rc;
+        bb += b[c] * b[c];
+        rr += rc * rc;
+      }
+    }
+  }
+  return [bb, rr];
+}
+
+/** Σ a_c b_c over the runs. */
+export function dotOnRuns(a: Float64Array, b: Float64Array, runs: Int32Array): number {
+  let s = 0;
+  for (let k = 0; k < runs.length; k += 2) for (let c = runs[k], end = runs[k + 1]; c < end; c++) s += a[c] * b[c];
+  return s;
+}
