@@ -168,8 +168,9 @@ function releaseAssemblyArrays(h: Hierarchy): void {
 
 function hierarchyBytes(h: Hierarchy): number {
   let n = 0;
-  for (const op of h.levels) n += op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength + op.active.byteLength + (op.runs?.byteLength ?? 0);
-  for (const list of [h.b, h.x, h.r]) for (const a of list) n += a.byteLength;
+  for (const op of h.levels) n += op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength + (op.inverseDiag?.byteLength ?? 0) + op.active.byteLength +
+    (op.runs?.byteLength ?? 0) + (op.rowRuns?.byteLength ?? 0);
+  for (const list of [h.b, h.x]) for (const a of list) n += a.byteLength;
   const coarsest = h.coarsest as { unknowns?: number; bandwidth?: number };
   if (coarsest.unknowns !== undefined && coarsest.bandwidth !== undefined) n += coarsest.unknowns * (coarsest.bandwidth + 2) * 8;
   return n;
