@@ -1,5 +1,8 @@
 import { AVOGADRO, BOLTZMANN, ELEMENTARY_CHARGE, VACUUM_PERMITTIVITY } from './constants';
 
+/** Helmholtz–Smoluchowski (μ_eo = −ε ζ / μ and its inverse) lives in shared/ so the app can use it. */
+export { electroosmoticMobility, zetaFromMobility } from '../../shared/physics';
+
 /**
  * Debye length of a symmetric z:z electrolyte (physics.md §4):
  *   λ_D = sqrt(ε_r ε₀ k_B T / (2 N_A e² z² I)),  I in mol/m³.
@@ -7,19 +10,6 @@ import { AVOGADRO, BOLTZMANN, ELEMENTARY_CHARGE, VACUUM_PERMITTIVITY } from './c
 export function debyeLength(relativePermittivity: number, temperature: number, ionicStrength: number, valence = 1): number {
   const eps = relativePermittivity * VACUUM_PERMITTIVITY;
   return Math.sqrt((eps * BOLTZMANN * temperature) / (2 * AVOGADRO * ELEMENTARY_CHARGE ** 2 * valence ** 2 * ionicStrength));
-}
-
-/**
- * Electroosmotic mobility from the Helmholtz–Smoluchowski relation: μ_eo = −ε ζ / μ
- * (positive for a negatively charged wall: flow towards the cathode).
- */
-export function electroosmoticMobility(relativePermittivity: number, viscosity: number, zeta: number): number {
-  return (-relativePermittivity * VACUUM_PERMITTIVITY * zeta) / viscosity;
-}
-
-/** The zeta potential that gives a mobility (inverse of `electroosmoticMobility`). */
-export function zetaFromMobility(relativePermittivity: number, viscosity: number, mobility: number): number {
-  return (-mobility * viscosity) / (relativePermittivity * VACUUM_PERMITTIVITY);
 }
 
 /** Thermal voltage k_B T / e. */

@@ -2,6 +2,8 @@
  * The validity checks Osmolane reports with every solve (physics.md §6). Thresholds that are common practice or
  * from memory say so; the high-voltage caution defers to local electrical-safety rules.
  */
+import { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../shared/physics';
+
 export type WarningCode = 'thin-edl' | 'creeping-flow' | 'joule-heating' | 'high-voltage' | 'resolution';
 
 export interface ValidityWarning {
@@ -24,24 +26,8 @@ export interface ValidityInput {
   cellsAcrossNarrowest: number;
 }
 
-/** Thresholds (physics.md §6). */
-export const LIMITS = {
-  /** λ_D / min(width, depth): common practice, no single source. */
-  thinEdl: 0.01,
-  /** Re: common practice. */
-  reynolds: 1,
-  /** W/m: common practice in capillary electrophoresis, value from memory. */
-  powerPerLength: 1,
-  /** V: above this a port gets the high-voltage caution. */
-  highVoltage: 50,
-  /** cells across the narrowest channel. */
-  cellsAcross: 8,
-} as const;
-
-export const HIGH_VOLTAGE_CAUTION =
-  'High voltage: supplies of this size can kill. Use a current-limited supply and an interlocked enclosure that cuts ' +
-  'and discharges the voltage when opened; never touch reservoirs, electrodes or liquid while energised. Follow your ' +
-  "local electrical-safety rules and the practice of people trained in high-voltage work; Osmolane's numbers do not replace them.";
+/** Thresholds (physics.md §6) and the high-voltage caution live in shared/physics.ts (the app shows them). */
+export { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../shared/physics';
 
 export function validityWarnings(v: ValidityInput): ValidityWarning[] {
   const out: ValidityWarning[] = [];

@@ -3,8 +3,7 @@
  * a new document and leaves the old one as it was.
  */
 import type { Buffer, DesignDocument, Port, Region, WallZone, Zeta } from '../../../../shared/design';
-import { electroosmoticMobility, zetaFromMobility } from '../../../../solver/physics/electrokinetics';
-import { LIMITS } from '../../../../solver/physics/validity';
+import { electroosmoticMobility, LIMITS, zetaFromMobility } from '../../../../shared/physics';
 
 export type Wall = keyof Zeta;
 

@@ -12,7 +12,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { Subscription } from 'rxjs';
 import type { BufferValues, WallValues } from '../../../../shared/api';
 import type { Buffer, DesignDocument } from '../../../../shared/design';
-import { HIGH_VOLTAGE_CAUTION } from '../../../../solver/physics/validity';
+import { HIGH_VOLTAGE_CAUTION } from '../../../../shared/physics';
 import { quantityError, quantityValidator, readQuantity, type QuantityRule } from '../../ui/quantity-validator';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { formatQuantity, parsePressureOrHead, pressureToHead, type Dimension } from '../../ui/units';

@@ -13,7 +13,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { ActivatedRoute, Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { DesignDocument } from '../../../../shared/design';
-import { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../../../solver/physics/validity';
+import { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../../../shared/physics';
 import { readFieldBlob, writeFieldBlob } from '../../../../solver/result/field-blob';
 import type { SolveFields } from '../../../../solver/result/types';
 import { Api } from '../../core/api';
