@@ -3,7 +3,7 @@
  * result or the solver's refusal. Runs the same solver/ code as the browser's Web Worker and the command line.
  */
 import { parentPort } from 'node:worker_threads';
-import { writeFieldBlob } from '../../solver/result/field-blob';
+import { writeFieldBlob } from '../../shared/field-blob';
 import { resultJson, SolveError, solveDesign } from '../../solver/solve';
 import { solvePoint, superposedSweep } from '../../solver/sweep';
 import type { SolverReply, SolverRequest, SolverTask } from './solver-pool';

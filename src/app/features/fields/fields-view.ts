@@ -14,7 +14,7 @@ import { ActivatedRoute, Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { DesignDocument } from '../../../../shared/design';
 import { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../../../shared/physics';
-import { readFieldBlob, writeFieldBlob } from '../../../../solver/result/field-blob';
+import { readFieldBlob, writeFieldBlob } from '../../../../shared/field-blob';
 import type { SolveFields } from '../../../../solver/result/types';
 import { Api } from '../../core/api';
 import { errorMessage } from '../../core/error-message';

@@ -4,8 +4,8 @@
  */
 import type { RunDetail, RunSummary } from '../../../../shared/api';
 import type { DesignDocument } from '../../../../shared/design';
-import type { PortResult, SolveFields, SolveMetrics, SolveResult, SolverStats } from '../../../../solver/result/types';
-import { resultJson } from '../../../../solver/result/types';
+import type { PortResult, SolveFields, SolveMetrics, SolveResult, SolverStats } from '../../../../shared/result';
+import { resultJson } from '../../../../shared/result';
 
 export interface ShownWarning {
   code: string;
