@@ -10,6 +10,7 @@
  */
 import { parseDesign, type DesignDocument, type Point } from '../shared/design';
 import { discretiseDesign } from './grid/discretise';
+import { fluidRuns } from './grid/fluid-runs';
 import { debyeLength, reynolds } from './physics/electrokinetics';
 import { electricField } from './potential/gradient';
 import { electrodePower, maxPowerPerLength } from './potential/joule';
@@ -21,6 +22,8 @@ import { stokesBrinkmanFlow } from './flow/flow-stage';
 import { sampleProbes } from './result/probes';
 import type { SolveFields, SolveResult } from './result/types';
 import { convergenceWarning, electrodeWarnings, geometryWarnings, physicsWarnings } from './result/warnings';
+
+const { hypot, max } = Math;
 
 export { SolveError } from './result/errors';
 export type * from './result/types';
@@ -130,19 +133,21 @@ function solveValidated(design: DesignDocument, options: SolveOptions): SolveRes
   progress('fields', 0);
   const n = grid.nx * grid.ny;
   const fraction = Float32Array.from(grid.fraction);
-  const potential = Float32Array.from(pot.potential);
-  const fieldX = new Float32Array(n), fieldY = new Float32Array(n);
+  // NaN outside the fluid; the fluid cells visited run by run (a layout may fill a few per cent of its box).
+  const potential = new Float32Array(n).fill(NaN);
+  const fieldX = new Float32Array(n).fill(NaN), fieldY = new Float32Array(n).fill(NaN);
   let maxField = 0, maxSpeed = 0;
-  for (let c = 0; c < n; c++) {
-    if (!(grid.fraction[c] > 0)) {
-      potential[c] = fieldX[c] = fieldY[c] = NaN;
-      continue;
+  const { runs } = fluidRuns(grid);
+  for (let k = 0; k < runs.length; k += 2) {
+    const from = runs[k], to = runs[k + 1];
+    potential.set(pot.potential.subarray(from, to), from);
+    fieldX.set(field.x.subarray(from, to), from);
+    fieldY.set(field.y.subarray(from, to), from);
+    for (let c = from; c < to; c++) {
+      maxField = max(maxField, hypot(field.x[c], field.y[c]));
+      const speed = hypot(flow.velocityX[c], flow.velocityY[c]);
+      if (speed > maxSpeed) maxSpeed = speed;
     }
-    fieldX[c] = field.x[c];
-    fieldY[c] = field.y[c];
-    maxField = Math.max(maxField, Math.hypot(field.x[c], field.y[c]));
-    const speed = Math.hypot(flow.velocityX[c], flow.velocityY[c]);
-    if (speed > maxSpeed) maxSpeed = speed;
   }
   const fields: SolveFields = {
     nx: grid.nx, ny: grid.ny, spacing: grid.spacing, x0: grid.x0, y0: grid.y0,

@@ -4,6 +4,7 @@
  * the normal velocity is 0 by construction, does not pull the mean down.
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import type { PortFaces } from './port-faces';
 
 export function cellVelocity(
@@ -18,16 +19,17 @@ export function cellVelocity(
   for (let f = 0; f < ports.count; f++) (ports.axis[f] === 0 ? openX : openY)[ports.node[f]] += ports.length[f] / h;
   const vx = new Float64Array(nx * ny);
   const vy = new Float64Array(nx * ny);
+  const { runs, rowRuns } = fluidRuns(grid);
   for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      const c = i + j * nx;
-      if (!(grid.fraction[c] > 0)) continue;
-      const w = i + j * (nx + 1), e = w + 1;
-      const sx = openX[w] + openX[e];
-      if (sx > 0) vx[c] = (openX[w] * u[w] + openX[e] * u[e]) / sx;
-      const s = c, n = c + nx;
-      const sy = openY[s] + openY[n];
-      if (sy > 0) vy[c] = (openY[s] * v[s] + openY[n] * v[n]) / sy;
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+        const w = c + j, e = w + 1;
+        const sx = openX[w] + openX[e];
+        if (sx > 0) vx[c] = (openX[w] * u[w] + openX[e] * u[e]) / sx;
+        const s = c, n = c + nx;
+        const sy = openY[s] + openY[n];
+        if (sy > 0) vy[c] = (openY[s] * v[s] + openY[n] * v[n]) / sy;
+      }
     }
   }
   return { x: vx, y: vy };

@@ -11,21 +11,21 @@
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
 import { mobility, type FlowProblem } from './flow-problem';
-import type { Component } from './staggered';
+import { openNodes, type Component } from './staggered';
+
+const { isFinite } = Number;
 
 /** Fills out[node] with E along the component's axis on every open face (0 elsewhere). */
 export function faceField(grid: CutCellGrid, comp: Component, potential: Float64Array, out: Float64Array): Float64Array {
   out.fill(0);
   const h = grid.spacing;
-  const ap = comp.normalAperture;
-  for (let b = 0; b < comp.nb; b++) {
-    for (let a = 1; a < comp.cellsA; a++) {
-      const n = comp.node(a, b);
-      if (!(ap[n] > 0)) continue;
-      const lo = potential[comp.cell(a - 1, b)];
-      const hi = potential[comp.cell(a, b)];
-      if (Number.isFinite(lo) && Number.isFinite(hi)) out[n] = -(hi - lo) / h;
-    }
+  const nodes = openNodes(grid, comp);
+  for (let k = 0; k < nodes.length; k++) {
+    const n = nodes[k];
+    const [a, b] = comp.nodeAB(n);
+    const lo = potential[comp.cell(a - 1, b)];
+    const hi = potential[comp.cell(a, b)];
+    if (isFinite(lo) && isFinite(hi)) out[n] = -(hi - lo) / h;
   }
   return out;
 }

@@ -12,6 +12,7 @@
  *   |du/dz| ≤ (6 |ū − u_tb| + |u_lid − u_floor|) / d.
  */
 import { cutIndex } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import { reynolds } from '../physics/electrokinetics';
 import { cellFieldFromFaces } from './face-field';
 import type { FlowFields } from './flow-fields';
@@ -26,6 +27,9 @@ export interface FlowMetrics {
   maxFloorShearRate: number;
 }
 
+const { abs, hypot, max } = Math;
+const { isFinite } = Number;
+
 /** Least centroid-to-wall distance for the wall shear estimate, in cells. */
 const MIN_SHEAR_DISTANCE = 0.25;
 
@@ -37,8 +41,11 @@ export function flowMetrics(
 ): FlowMetrics {
   const { grid, depth } = problem;
   const { velocityX: ux, velocityY: uy } = fields;
+  const { runs } = fluidRuns(grid);
   let maxSpeed = 0;
-  for (let c = 0; c < ux.length; c++) if (grid.fraction[c] > 0) maxSpeed = Math.max(maxSpeed, Math.hypot(ux[c], uy[c]));
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) maxSpeed = max(maxSpeed, hypot(ux[c], uy[c]));
+  }
 
   const seg = grid.segments;
   let maxWall = 0;
@@ -47,26 +54,27 @@ export function flowMetrics(
     const c = seg.cell[s];
     const k = cutIndex(grid, c);
     const nX = seg.normalX[s], nY = seg.normalY[s];
-    const dist = Math.abs((grid.cutCentroidX[k] - seg.midX[s]) * nX + (grid.cutCentroidY[k] - seg.midY[s]) * nY);
+    const dist = abs((grid.cutCentroidX[k] - seg.midX[s]) * nX + (grid.cutCentroidY[k] - seg.midY[s]) * nY);
     const slip = (ux[c] - solution.slip.x[s]) * -nY + (uy[c] - solution.slip.y[s]) * nX;
-    maxWall = Math.max(maxWall, Math.abs(slip) / Math.max(dist, MIN_SHEAR_DISTANCE * grid.spacing));
+    maxWall = max(maxWall, abs(slip) / max(dist, MIN_SHEAR_DISTANCE * grid.spacing));
   }
 
   const field = problem.cellField ?? cellFieldFromFaces(grid, problem.potential);
   const mTB = floorLidMobility(problem);
-  const couette = Math.abs(mobility(problem, problem.zetaLid) - mobility(problem, problem.zetaFloor));
+  const couette = abs(mobility(problem, problem.zetaLid) - mobility(problem, problem.zetaFloor));
   let maxFloor = 0;
-  for (let c = 0; c < ux.length; c++) {
-    if (!(grid.fraction[c] > 0)) continue;
-    const ex = Number.isFinite(field.x[c]) ? field.x[c] : 0, ey = Number.isFinite(field.y[c]) ? field.y[c] : 0;
-    const rate = (6 * Math.hypot(ux[c] - mTB * ex, uy[c] - mTB * ey) + couette * Math.hypot(ex, ey)) / depth;
-    maxFloor = Math.max(maxFloor, rate);
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      const ex = isFinite(field.x[c]) ? field.x[c] : 0, ey = isFinite(field.y[c]) ? field.y[c] : 0;
+      const rate = (6 * hypot(ux[c] - mTB * ex, uy[c] - mTB * ey) + couette * hypot(ex, ey)) / depth;
+      maxFloor = max(maxFloor, rate);
+    }
   }
 
   const portMeanSpeed = new Float64Array(solution.portFlowRate.length);
   for (let k = 0; k < portMeanSpeed.length; k++) {
     const width = grid.portLength[k];
-    portMeanSpeed[k] = width > 0 ? Math.abs(solution.portFlowRate[k]) / (width * depth) : 0;
+    portMeanSpeed[k] = width > 0 ? abs(solution.portFlowRate[k]) / (width * depth) : 0;
   }
   return {
     maxSpeed,

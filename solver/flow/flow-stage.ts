@@ -4,6 +4,7 @@
  * Float32 (NaN outside the fluid), the port flow rates, the mean speed per port's channel leg, the wall and
  * floor shear rates and a warning when MINRES stops short of the tolerance.
  */
+import { fluidRuns } from '../grid/fluid-runs';
 import { SolveError } from '../result/errors';
 import type { FlowInput, FlowOutput } from '../result/interim-flow';
 import { convergenceWarning } from '../result/warnings';
@@ -35,19 +36,21 @@ export function stokesBrinkmanFlow(input: FlowInput): FlowOutput {
   const metrics = flowMetrics(problem, solution, fields, { density: design.buffer.density, narrowestWidth: input.narrowestWidth ?? Infinity });
   const n = grid.nx * grid.ny;
   const out = {
-    velocityX: new Float32Array(n),
-    velocityY: new Float32Array(n),
-    pressure: new Float32Array(n),
-    vorticity: new Float32Array(n),
-    streamfunction: new Float32Array(n),
+    velocityX: new Float32Array(n).fill(NaN),
+    velocityY: new Float32Array(n).fill(NaN),
+    pressure: new Float32Array(n).fill(NaN),
+    vorticity: new Float32Array(n).fill(NaN),
+    streamfunction: new Float32Array(n).fill(NaN),
   };
-  for (let c = 0; c < n; c++) {
-    const fluid = grid.fraction[c] > 0;
-    out.velocityX[c] = fluid ? fields.velocityX[c] : NaN;
-    out.velocityY[c] = fluid ? fields.velocityY[c] : NaN;
-    out.pressure[c] = fluid ? fields.pressure[c] : NaN;
-    out.vorticity[c] = fluid ? fields.vorticity[c] : NaN;
-    out.streamfunction[c] = fluid ? fields.streamfunction[c] : NaN;
+  // NaN outside the fluid; the fluid cells' values copied run by run.
+  const { runs } = fluidRuns(grid);
+  for (let k = 0; k < runs.length; k += 2) {
+    const from = runs[k], to = runs[k + 1];
+    out.velocityX.set(fields.velocityX.subarray(from, to), from);
+    out.velocityY.set(fields.velocityY.subarray(from, to), from);
+    out.pressure.set(fields.pressure.subarray(from, to), from);
+    out.vorticity.set(fields.vorticity.subarray(from, to), from);
+    out.streamfunction.set(fields.streamfunction.subarray(from, to), from);
   }
   return {
     ...out,

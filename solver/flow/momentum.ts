@@ -35,7 +35,9 @@ import { segmentRange } from '../grid/cut-cell-grid';
 import { createOperator, finishOperator, type Operator5 } from '../multigrid/operator';
 import { depthFriction, floorLidMobility, type FlowProblem } from './flow-problem';
 import type { PortFaces } from './port-faces';
-import type { Component } from './staggered';
+import { openNodes, type Component } from './staggered';
+
+const { abs, max, min, hypot } = Math;
 
 /** Least node-to-wall distance, in cells: keeps wall conductances finite next to slivers. */
 export const MIN_WALL_DISTANCE = 0.05;
@@ -77,43 +79,48 @@ export function assembleMomentum(
   const wall = new Float64Array(comp.n1 * comp.n2);
   rhs.fill(0);
 
-  // ã per node, kept in op.diag until finishOperator computes the real diagonal.
+  // ã per node, kept in op.diag until finishOperator computes the real diagonal. Nodes exist on open faces and
+  // on port faces only: the loops visit those (openNodes), not the box.
   const eff = op.diag;
-  for (let b = 0; b < comp.nb; b++) for (let a = 1; a < comp.cellsA; a++) eff[comp.node(a, b)] = ap[comp.node(a, b)];
-  for (const [node, f] of portOf) eff[node] += ports.length[f] / h;
+  const open = openNodes(grid, comp);
+  for (let k = 0; k < open.length; k++) eff[open[k]] = ap[open[k]];
+  const nodes = [...open];
+  for (const [node, f] of portOf) {
+    if (!(eff[node] > 0)) nodes.push(node);
+    eff[node] += ports.length[f] / h;
+  }
   const effAt = (a: number, b: number) => (a >= 1 && a < comp.cellsA && b >= 0 && b < comp.nb ? eff[comp.node(a, b)] : 0);
 
-  for (let b = 0; b < comp.nb; b++) {
-    for (let a = 1; a < comp.cellsA; a++) {
-      const n = comp.node(a, b);
-      const e = eff[n];
-      if (!(e > 0)) continue;
-      op.active[n] = 1;
-      let volume = ap[n] * h * h;
-      let field = faceE[n];
-      const f = portOf.get(n);
-      if (f !== undefined) {
-        volume += ports.volume[f];
-        const open = ap[n] * h;
-        field = (open * faceE[n] + ports.length[f] * ports.field[f]) / (open + ports.length[f]);
-        rhs[n] -= ports.sign[f] * ports.push[f];
-      }
-      op.reaction[n] = alpha * volume;
-      rhs[n] += alpha * volume * mobilityTB * field;
+  for (const n of nodes) {
+    const [a, b] = comp.nodeAB(n);
+    if (!(a >= 1 && a < comp.cellsA)) continue;
+    const e = eff[n];
+    if (!(e > 0)) continue;
+    op.active[n] = 1;
+    let volume = ap[n] * h * h;
+    let field = faceE[n];
+    const f = portOf.get(n);
+    if (f !== undefined) {
+      volume += ports.volume[f];
+      const open = ap[n] * h;
+      field = (open * faceE[n] + ports.length[f] * ports.field[f]) / (open + ports.length[f]);
+      rhs[n] -= ports.sign[f] * ports.push[f];
+    }
+    op.reaction[n] = alpha * volume;
+    rhs[n] += alpha * volume * mobilityTB * field;
 
-      const eNext = effAt(a + 1, b);
-      if (eNext > 0) gN[comp.normalLink(a + 1, b)] = (mu * (e + eNext)) / 2;
+    const eNext = effAt(a + 1, b);
+    if (eNext > 0) gN[comp.normalLink(a + 1, b)] = (mu * (e + eNext)) / 2;
 
-      const edgeUp = (comp.tangentialAperture(a - 1, b + 1) + comp.tangentialAperture(a, b + 1)) / 2;
-      if (effAt(a, b + 1) > 0) {
-        const gap = Math.max(openCentre(a, b + 1) - openCentre(a, b), MIN_WALL_DISTANCE);
-        gT[comp.tangentialLink(a, b + 1)] = (mu * edgeUp) / gap;
-      }
-      else if (edgeUp > 0) closeEdge(n, a, b, 1, edgeUp);
-      if (!(effAt(a, b - 1) > 0)) {
-        const edgeDown = (comp.tangentialAperture(a - 1, b) + comp.tangentialAperture(a, b)) / 2;
-        if (edgeDown > 0) closeEdge(n, a, b, -1, edgeDown);
-      }
+    const edgeUp = (comp.tangentialAperture(a - 1, b + 1) + comp.tangentialAperture(a, b + 1)) / 2;
+    if (effAt(a, b + 1) > 0) {
+      const gap = max(openCentre(a, b + 1) - openCentre(a, b), MIN_WALL_DISTANCE);
+      gT[comp.tangentialLink(a, b + 1)] = (mu * edgeUp) / gap;
+    }
+    else if (edgeUp > 0) closeEdge(n, a, b, 1, edgeUp);
+    if (!(effAt(a, b - 1) > 0)) {
+      const edgeDown = (comp.tangentialAperture(a - 1, b) + comp.tangentialAperture(a, b)) / 2;
+      if (edgeDown > 0) closeEdge(n, a, b, -1, edgeDown);
     }
   }
 
@@ -124,23 +131,23 @@ export function assembleMomentum(
     const isPort = seg.port[s] >= 0;
     const value = isPort ? 0 : slipA[s];
     const nA = comp.segmentNormalA(s), nB = comp.segmentNormalB(s);
-    if (Math.abs(nB) > MIN_PROJECTION && !(isPort && Math.abs(nA) >= PORT_TANGENT_SIN)) {
-      const w = (seg.length[s] * Math.abs(nB)) / 2;
+    if (abs(nB) > MIN_PROJECTION && !(isPort && abs(nA) >= PORT_TANGENT_SIN)) {
+      const w = (seg.length[s] * abs(nB)) / 2;
       for (const n of [comp.node(a, b), comp.node(a + 1, b)]) {
-        if (eff[n] > 0) pull(n, (mu * w) / Math.max((eff[n] * h) / 2, floor), w / h, value);
+        if (eff[n] > 0) pull(n, (mu * w) / max((eff[n] * h) / 2, floor), w / h, value);
       }
     }
-    if (!isPort && Math.abs(nA) > MIN_PROJECTION) {
+    if (!isPort && abs(nA) > MIN_PROJECTION) {
       const n = comp.node(nA > 0 ? a : a + 1, b);
       if (eff[n] > 0) {
         const dist = nA > 0 ? comp.segmentMidA(s) - comp.facePlane(a) : comp.facePlane(a + 1) - comp.segmentMidA(s);
-        const w = seg.length[s] * Math.abs(nA);
-        pull(n, (mu * w) / Math.min(Math.max(dist, floor), h), w / h, value);
+        const w = seg.length[s] * abs(nA);
+        pull(n, (mu * w) / min(max(dist, floor), h), w / h, value);
       }
     }
   }
   finishOperator(op);
-  for (let n = 0; n < wall.length; n++) wall[n] = op.boundary[n] > 0 ? (mu * wall[n]) / op.boundary[n] : 0;
+  for (const n of nodes) wall[n] = op.boundary[n] > 0 ? (mu * wall[n]) / op.boundary[n] : 0;
   return { op, wallDistance: wall };
 
   /**
@@ -148,7 +155,7 @@ export function assembleMomentum(
    * neighbour that exists when only one does, else centred.
    */
   function openCentre(a: number, b: number): number {
-    const e = Math.min(eff[comp.node(a, b)], 1);
+    const e = min(eff[comp.node(a, b)], 1);
     const below = effAt(a, b - 1) > 0, above = effAt(a, b + 1) > 0;
     if (below && !above) return b + e / 2;
     if (above && !below) return b + 1 - e / 2;
@@ -164,14 +171,14 @@ export function assembleMomentum(
       const [s0, s1] = segmentRange(grid, c);
       for (let s = s0; s < s1; s++) {
         const mid = comp.segmentMidB(s);
-        if (Math.abs(comp.segmentNormalA(s)) > 0.99 && Math.abs(comp.segmentMidA(s) - plane) < 1e-6 * h && mid > lo && mid < hi) {
+        if (abs(comp.segmentNormalA(s)) > 0.99 && abs(comp.segmentMidA(s) - plane) < 1e-6 * h && mid > lo && mid < hi) {
           pull(n, mu * edge, edge, grid.segments.port[s] >= 0 ? 0 : slipA[s]);
           return;
         }
       }
     }
     // The end of the open part of the node's face, then the wall segment nearest to it.
-    const e = Math.min(eff[n], 1);
+    const e = min(eff[n], 1);
     const base = comp.tangentialPlane(b);
     const anchored = effAt(a, b - dir) > 0;
     const end = anchored ? (dir > 0 ? base + e * h : base + h - e * h) : base + h / 2 + (dir * e * h) / 2;
@@ -179,7 +186,7 @@ export function assembleMomentum(
     for (const c of [comp.cell(a - 1, b), comp.cell(a, b), comp.cell(a - 1, nb), comp.cell(a, nb)]) {
       const [s0, s1] = segmentRange(grid, c);
       for (let s = s0; s < s1; s++) {
-        const d = Math.hypot(comp.segmentMidA(s) - plane, comp.segmentMidB(s) - end);
+        const d = hypot(comp.segmentMidA(s) - plane, comp.segmentMidB(s) - end);
         if (d < best) {
           best = d;
           nearest = s;
@@ -187,9 +194,9 @@ export function assembleMomentum(
       }
     }
     const isPort = nearest >= 0 && grid.segments.port[nearest] >= 0;
-    if (isPort && Math.abs(comp.segmentNormalA(nearest)) >= PORT_TANGENT_SIN) return; // free at an oblique port
+    if (isPort && abs(comp.segmentNormalA(nearest)) >= PORT_TANGENT_SIN) return; // free at an oblique port
     const value = nearest < 0 || isPort ? 0 : slipA[nearest];
-    pull(n, (mu * edge * h) / Math.max((e * h) / 2, MIN_WALL_DISTANCE * h), edge, value);
+    pull(n, (mu * edge * h) / max((e * h) / 2, MIN_WALL_DISTANCE * h), edge, value);
   }
 
   /** A Dirichlet pull towards `value` with conductance g over a wall of length `cells` (in cells). */

@@ -25,7 +25,9 @@ import { buildHierarchy, vcycle, type Hierarchy } from '../multigrid/cycle';
 import { finishOperator, type Operator5 } from '../multigrid/operator';
 import type { CellMerging } from './cell-merging';
 import type { PortFaces } from './port-faces';
-import type { Component } from './staggered';
+import { openNodes, type Component } from './staggered';
+
+const { min } = Math;
 
 export interface SchurPreconditioner {
   /** z = S̃⁻¹ r on the pressure cells. */
@@ -70,14 +72,17 @@ export function cahouetChabard(input: SchurInput): SchurPreconditioner {
   };
   // The face arrays of the Poisson operator have the layouts of u and v: fill them with α_eff first.
   const friction = [poisson.gx, poisson.gy];
-  for (const comp of comps) lubricationFriction(comp, ports, h, alpha, viscosity, friction[comp.axis]);
+  const nodes = comps.map((comp) => openNodes(grid, comp));
+  for (const comp of comps) lubricationFriction(comp, ports, nodes[comp.axis], h, alpha, viscosity, friction[comp.axis]);
   for (let f = 0; f < ports.count; f++) {
     poisson.boundary[ports.cell[f]] += ports.conductance[f] / friction[ports.axis[f]][ports.node[f]];
   }
   for (const comp of comps) {
     const g = friction[comp.axis];
     const ap = comp.normalAperture;
-    for (let k = 0; k < g.length; k++) g[k] = ap[k] > 0 ? ap[k] / g[k] : 0;
+    // Port-only nodes (closed faces) drop out here: their conductance went to `boundary` above.
+    for (const [node] of ports.byNode[comp.axis]) if (!(ap[node] > 0)) g[node] = 0;
+    for (const node of nodes[comp.axis]) g[node] = ap[node] / g[node];
   }
   finishOperator(poisson);
   const hierarchy = buildHierarchy(poisson, sweeps, 'extents');
@@ -85,15 +90,13 @@ export function cahouetChabard(input: SchurInput): SchurPreconditioner {
   for (const comp of comps) {
     const op = ops[comp.axis];
     const ap = comp.normalAperture;
-    for (let b = 0; b < comp.nb; b++) {
-      for (let a = 1; a < comp.cellsA; a++) {
-        const node = comp.node(a, b);
-        const viscous = op.diag[node] - op.reaction[node];
-        if (!op.active[node] || !(viscous > 0) || !(ap[node] > 0)) continue;
-        const bb = (ap[node] * h) ** 2 / viscous;
-        stokes[comp.cell(a - 1, b)] += bb;
-        stokes[comp.cell(a, b)] += bb;
-      }
+    for (const node of nodes[comp.axis]) {
+      const viscous = op.diag[node] - op.reaction[node];
+      if (!op.active[node] || !(viscous > 0)) continue;
+      const [a, b] = comp.nodeAB(node);
+      const bb = (ap[node] * h) ** 2 / viscous;
+      stokes[comp.cell(a - 1, b)] += bb;
+      stokes[comp.cell(a, b)] += bb;
     }
   }
   for (let f = 0; f < ports.count; f++) {
@@ -105,9 +108,12 @@ export function cahouetChabard(input: SchurInput): SchurPreconditioner {
     stokes[ports.cell[f]] += ((open + ports.length[f]) ** 2 - open * open) / viscous;
   }
   for (let k = 0; k < merging.cell.length; k++) stokes[merging.into[k]] += stokes[merging.cell[k]];
-  for (let c = 0; c < n; c++) stokes[c] = active[c] && stokes[c] > 0 ? 1 / stokes[c] : 0;
-
   const runs = runsOf(active, grid.nx, grid.ny).runs;
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) stokes[c] = stokes[c] > 0 ? 1 / stokes[c] : 0;
+  }
+  for (let k = 0; k < merging.cell.length; k++) stokes[merging.cell[k]] = 0;
+
   const merged = merging.cell;
   return {
     poisson,
@@ -125,23 +131,23 @@ export function cahouetChabard(input: SchurInput): SchurPreconditioner {
  * α_eff = α + 12 μ / w² per node of the component, w the open width of the run of nodes along b through it
  * (Σ ã h, ã = aperture + port length / h, each at most 1); 0 where there is no node.
  */
-function lubricationFriction(comp: Component, ports: PortFaces, h: number, alpha: number, mu: number, out: Float64Array): void {
+function lubricationFriction(comp: Component, ports: PortFaces, nodes: Int32Array, h: number, alpha: number, mu: number, out: Float64Array): void {
   const ap = comp.normalAperture;
   out.fill(0);
-  for (let b = 0; b < comp.nb; b++) for (let a = 1; a < comp.cellsA; a++) out[comp.node(a, b)] = ap[comp.node(a, b)];
-  for (const [node, f] of ports.byNode[comp.axis]) out[node] += ports.length[f] / h;
-  for (let a = 1; a < comp.cellsA; a++) {
-    let b = 0;
-    while (b < comp.nb) {
-      if (!(out[comp.node(a, b)] > 0)) {
-        b++;
-        continue;
-      }
-      let end = b, width = 0;
-      while (end < comp.nb && out[comp.node(a, end)] > 0) width += Math.min(out[comp.node(a, end++)], 1) * h;
-      const value = alpha + (12 * mu) / (width * width);
-      for (let k = b; k < end; k++) out[comp.node(a, k)] = value;
-      b = end;
-    }
+  for (const node of nodes) out[node] = ap[node];
+  const all = [...nodes];
+  for (const [node, f] of ports.byNode[comp.axis]) {
+    if (!(out[node] > 0)) all.push(node);
+    out[node] += ports.length[f] / h;
+  }
+  // Each run along b is measured from its first node (the one whose b − 1 neighbour has no node), once.
+  const at = (a: number, b: number) => (b >= 0 && b < comp.nb ? out[comp.node(a, b)] : 0);
+  for (const node of all) {
+    const [a, b] = comp.nodeAB(node);
+    if (!(a >= 1 && a < comp.cellsA) || at(a, b - 1) > 0) continue;
+    let end = b, width = 0;
+    while (at(a, end) > 0) width += min(out[comp.node(a, end++)], 1) * h;
+    const value = alpha + (12 * mu) / (width * width);
+    for (let k = b; k < end; k++) out[comp.node(a, k)] = value;
   }
 }

@@ -7,7 +7,7 @@
  * bounded from Hele-Shaw (d ≪ w) to Stokes (d ≫ w) (Elman, Silvester & Wathen 2014, ch. 4 and 9).
  */
 import { buildHierarchy, type Hierarchy } from '../multigrid/cycle';
-import type { Operator5 } from '../multigrid/operator';
+import { operatorBytes, type Operator5 } from '../multigrid/operator';
 import { mergedCouplings, mergeSmallCells } from './cell-merging';
 import { cellFieldFromFaces, faceField, wallSlip } from './face-field';
 import { depthFriction, type FlowProblem } from './flow-problem';
@@ -17,7 +17,7 @@ import { portFaces, type PortFaces } from './port-faces';
 import { portFlowRates } from './port-flow';
 import { applySaddlePoint, blocks, preconditionSaddlePoint, saddlePointSystem } from './saddle-point';
 import { cahouetChabard } from './schur';
-import { components } from './staggered';
+import { components, openNodes, type Component } from './staggered';
 
 export interface FlowOptions {
   /** MINRES stops at ‖r‖_{M⁻¹} / ‖b‖_{M⁻¹} ≤ tolerance (default 1e-9). */
@@ -78,7 +78,7 @@ export function solveFlow(problem: FlowProblem, options: FlowOptions = {}): Flow
   });
   const ops = momentum.map((m) => m.op) as [Operator5, Operator5];
 
-  const fluid = pressureCells(problem, ports);
+  const fluid = pressureCells(problem, comps, ports);
   const merging = mergeSmallCells(grid);
   const pressureActive = fluid.slice();
   for (const t of merging.cell) pressureActive[t] = 0;
@@ -138,17 +138,13 @@ export function solveFlow(problem: FlowProblem, options: FlowOptions = {}): Flow
 }
 
 /** Cells with fluid that some open face or port face reaches. */
-function pressureCells(problem: FlowProblem, ports: PortFaces): Uint8Array {
-  const { nx, ny, apertureX: ax, apertureY: ay } = problem.grid;
-  const active = new Uint8Array(nx * ny);
-  for (let j = 0; j < ny; j++) {
-    for (let i = 1; i < nx; i++) {
-      if (ax[i + j * (nx + 1)] > 0) active[i - 1 + j * nx] = active[i + j * nx] = 1;
-    }
-  }
-  for (let j = 1; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      if (ay[i + j * nx] > 0) active[i + (j - 1) * nx] = active[i + j * nx] = 1;
+function pressureCells(problem: FlowProblem, comps: [Component, Component], ports: PortFaces): Uint8Array {
+  const { grid } = problem;
+  const active = new Uint8Array(grid.nx * grid.ny);
+  for (const comp of comps) {
+    for (const node of openNodes(grid, comp)) {
+      const [a, b] = comp.nodeAB(node);
+      active[comp.cell(a - 1, b)] = active[comp.cell(a, b)] = 1;
     }
   }
   for (let f = 0; f < ports.count; f++) active[ports.cell[f]] = 1;
@@ -168,8 +164,7 @@ function releaseAssemblyArrays(h: Hierarchy): void {
 
 function hierarchyBytes(h: Hierarchy): number {
   let n = 0;
-  for (const op of h.levels) n += op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength + (op.inverseDiag?.byteLength ?? 0) + op.active.byteLength +
-    (op.runs?.byteLength ?? 0) + (op.rowRuns?.byteLength ?? 0);
+  for (const op of h.levels) n += operatorBytes(op);
   for (const list of [h.b, h.x]) for (const a of list) n += a.byteLength;
   const coarsest = h.coarsest as { unknowns?: number; bandwidth?: number };
   if (coarsest.unknowns !== undefined && coarsest.bandwidth !== undefined) n += coarsest.unknowns * (coarsest.bandwidth + 2) * 8;

@@ -13,6 +13,7 @@
  * `tangentialLinks` name which of gx / gy hold the links along a and along b.
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import type { Operator5 } from '../multigrid/operator';
 
 export type Axis = 0 | 1;
@@ -45,6 +46,8 @@ export interface Component {
   tangentialPlane(b: number): number;
   /** (a, b) of a cell index of the grid. */
   cellAB(c: number): [number, number];
+  /** (a, b) of a node index. */
+  nodeAB(n: number): [number, number];
   /** A segment's normal component along a and along b, and its midpoint along a. */
   segmentNormalA(s: number): number;
   segmentNormalB(s: number): number;
@@ -80,6 +83,10 @@ function xComponent(grid: CutCellGrid): Component {
       const i = c % nx;
       return [i, (c - i) / nx];
     },
+    nodeAB: (n) => {
+      const a = n % sx;
+      return [a, (n - a) / sx];
+    },
     segmentNormalA: (s) => seg.normalX[s],
     segmentNormalB: (s) => seg.normalY[s],
     segmentMidA: (s) => seg.midX[s],
@@ -111,9 +118,42 @@ function yComponent(grid: CutCellGrid): Component {
       const i = c % nx;
       return [(c - i) / nx, i];
     },
+    nodeAB: (n) => {
+      const b = n % nx;
+      return [(n - b) / nx, b];
+    },
     segmentNormalA: (s) => seg.normalY[s],
     segmentNormalB: (s) => seg.normalX[s],
     segmentMidA: (s) => seg.midY[s],
     segmentMidB: (s) => seg.midX[s],
   };
 }
+
+/**
+ * The nodes of a component whose face is open (aperture > 0), ascending. An open face joins two fluid cells,
+ * so they are found from the runs of fluid cells (solver/grid/fluid-runs.ts) without a pass over the box: a
+ * vertical face c + j between cells c − 1 and c of one run of row j, a horizontal face c below a cell c of
+ * row j ≥ 1. Port nodes whose face is closed are not in the list (port-faces.ts has them). Found once per grid.
+ */
+export function openNodes(grid: CutCellGrid, comp: Component): Int32Array {
+  const known = found.get(comp.normalAperture);
+  if (known) return known;
+  const { runs, rowRuns } = fluidRuns(grid);
+  const ap = comp.normalAperture;
+  const out: number[] = [];
+  for (let j = 0; j < grid.ny; j++) {
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      if (comp.axis === 0) {
+        for (let c = runs[k] + 1; c < runs[k + 1]; c++) if (ap[c + j] > 0) out.push(c + j);
+      } else if (j > 0) {
+        for (let c = runs[k]; c < runs[k + 1]; c++) if (ap[c] > 0) out.push(c);
+      }
+    }
+  }
+  const nodes = Int32Array.from(out);
+  found.set(comp.normalAperture, nodes);
+  return nodes;
+}
+
+/** Open nodes, kept with the aperture array they were found from (the grid's arrays never change). */
+const found = new WeakMap<Float64Array, Int32Array>();

@@ -8,21 +8,36 @@
  * and since every cell's net flux vanishes (divergence.ts), walking along a row instead gives the same values
  * up to the solver's continuity residual: ψ is single-valued, also around pillars (multiply connected
  * fluid), and constant along every wall (a closed face carries no flux); each wall gets its own constant,
- * the flow rate between it and the grid's lower edge. Cells get the mean of their four corners.
+ * the flow rate between it and the grid's lower edge. Cells get the mean of their four corners; the cell values
+ * are summed over the runs of fluid cells only (a face outside them carries no flux).
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import type { PortFaces } from './port-faces';
 
 export function streamfunction(grid: CutCellGrid, ports: PortFaces, u: Float64Array): Float64Array {
-  const { nx, ny } = grid;
-  const sx = nx + 1;
-  const corner = streamfunctionCorners(grid, ports, u);
+  const { nx, ny, spacing: h, apertureX: ax } = grid;
+  const { runs, rowRuns } = fluidRuns(grid);
+  const portOpen = new Map<number, number>();
+  for (let f = 0; f < ports.count; f++) if (ports.axis[f] === 0) portOpen.set(ports.node[f], (portOpen.get(ports.node[f]) ?? 0) + ports.length[f]);
+  // ψ on the corners of the current row's lower line, per column: the running sum up the column. Only the faces
+  // of fluid cells carry flux (open faces and port faces), so only those change it.
+  const column = new Float64Array(nx + 1);
+  const flux = new Float64Array(nx + 1);
   const psi = new Float64Array(nx * ny);
   for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      const c = i + j * nx;
-      if (!(grid.fraction[c] > 0)) continue;
-      psi[c] = 0.25 * (corner[i + j * sx] + corner[i + 1 + j * sx] + corner[i + (j + 1) * sx] + corner[i + 1 + (j + 1) * sx]);
+    const row = j * nx, faces = j * (nx + 1);
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      const i0 = runs[k] - row, i1 = runs[k + 1] - row;
+      for (let i = i0; i <= i1; i++) {
+        const f = i + faces;
+        const open = ax[f] * h + (portOpen.size > 0 ? portOpen.get(f) ?? 0 : 0);
+        flux[i] = open * u[f];
+      }
+      for (let i = i0; i < i1; i++) {
+        psi[row + i] = 0.25 * (column[i] + column[i + 1] + (column[i] + flux[i]) + (column[i + 1] + flux[i + 1]));
+      }
+      for (let i = i0; i <= i1; i++) column[i] += flux[i];
     }
   }
   return psi;

@@ -13,7 +13,10 @@
  * A_c = max(fraction, 1/4) h², so slivers do not divide by a tiny area.
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import type { PortFaces } from './port-faces';
+
+const { abs, max, round } = Math;
 
 /** Least area (fraction of a cell) the circulation is divided by. */
 export const MIN_VORTICITY_AREA = 0.25;
@@ -36,24 +39,27 @@ export function vorticity(
   // Mean u at the centre of horizontal face (i, j); mean v at the centre of vertical face (i, j).
   const uAt = (i: number, j: number) => mean(u, wu, i + (j - 1) * sx, i + 1 + (j - 1) * sx, i + j * sx, i + 1 + j * sx);
   const vAt = (i: number, j: number) => mean(v, wv, i - 1 + j * nx, i + j * nx, i - 1 + (j + 1) * nx, i + (j + 1) * nx);
+  // Fluid cells never lie on the grid's border (cut-cell-grid.ts), so all four faces exist.
+  const { runs, rowRuns } = fluidRuns(grid);
   for (let j = 1; j < ny - 1; j++) {
-    for (let i = 1; i < nx - 1; i++) {
-      const c = i + j * nx;
-      if (!(grid.fraction[c] > 0)) continue;
-      let circulation = 0;
-      if (ay[c] > 0) circulation += ay[c] * h * uAt(i, j);
-      if (ay[c + nx] > 0) circulation -= ay[c + nx] * h * uAt(i, j + 1);
-      if (ax[i + j * sx] > 0) circulation -= ax[i + j * sx] * h * vAt(i, j);
-      if (ax[i + 1 + j * sx] > 0) circulation += ax[i + 1 + j * sx] * h * vAt(i + 1, j);
-      omega[c] = circulation;
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+        const i = c - j * nx;
+        let circulation = 0;
+        if (ay[c] > 0) circulation += ay[c] * h * uAt(i, j);
+        if (ay[c + nx] > 0) circulation -= ay[c + nx] * h * uAt(i, j + 1);
+        if (ax[i + j * sx] > 0) circulation -= ax[i + j * sx] * h * vAt(i, j);
+        if (ax[i + 1 + j * sx] > 0) circulation += ax[i + 1 + j * sx] * h * vAt(i + 1, j);
+        omega[c] = circulation;
+      }
     }
   }
   for (let s = 0; s < seg.count; s++) {
     if (seg.port[s] >= 0) continue;
     omega[seg.cell[s]] += seg.length[s] * (-seg.normalY[s] * slip.x[s] + seg.normalX[s] * slip.y[s]);
   }
-  for (let c = 0; c < omega.length; c++) {
-    if (grid.fraction[c] > 0) omega[c] /= Math.max(grid.fraction[c], MIN_VORTICITY_AREA) * h * h;
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) omega[c] /= max(grid.fraction[c], MIN_VORTICITY_AREA) * h * h;
   }
   return omega;
 }
@@ -62,18 +68,26 @@ export function vorticity(
 function nodeWeights(grid: CutCellGrid, ports: PortFaces): [Uint8Array, Uint8Array] {
   const { nx, spacing: h, x0, y0, apertureX: ax, apertureY: ay, segments: seg } = grid;
   const wu = new Uint8Array(ax.length), wv = new Uint8Array(ay.length);
-  for (let f = 0; f < ax.length; f++) wu[f] = ax[f] > 0 ? 1 : 0;
-  for (let f = 0; f < ay.length; f++) wv[f] = ay[f] > 0 ? 1 : 0;
+  // Open faces join fluid cells: visit the runs of fluid cells (fluid-runs.ts).
+  const { runs, rowRuns } = fluidRuns(grid);
+  for (let j = 0; j < grid.ny; j++) {
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+        if (ax[c + j] > 0) wu[c + j] = 1;
+        if (ay[c] > 0) wv[c] = 1;
+      }
+    }
+  }
   for (let f = 0; f < ports.count; f++) (ports.axis[f] === 0 ? wu : wv)[ports.node[f]] = 1;
   for (let s = 0; s < seg.count; s++) {
     const c = seg.cell[s], i = c % nx, j = (c - i) / nx;
-    if (Math.abs(seg.normalX[s]) > 0.99) {
-      const k = Math.round((seg.midX[s] - x0) / h);
-      if (Math.abs(seg.midX[s] - (x0 + k * h)) < 1e-6 * h && (k === i || k === i + 1)) wu[k + j * (nx + 1)] = 1;
+    if (abs(seg.normalX[s]) > 0.99) {
+      const k = round((seg.midX[s] - x0) / h);
+      if (abs(seg.midX[s] - (x0 + k * h)) < 1e-6 * h && (k === i || k === i + 1)) wu[k + j * (nx + 1)] = 1;
     }
-    if (Math.abs(seg.normalY[s]) > 0.99) {
-      const k = Math.round((seg.midY[s] - y0) / h);
-      if (Math.abs(seg.midY[s] - (y0 + k * h)) < 1e-6 * h && (k === j || k === j + 1)) wv[i + k * nx] = 1;
+    if (abs(seg.normalY[s]) > 0.99) {
+      const k = round((seg.midY[s] - y0) / h);
+      if (abs(seg.midY[s] - (y0 + k * h)) < 1e-6 * h && (k === j || k === j + 1)) wv[i + k * nx] = 1;
     }
   }
   return [wu, wv];
