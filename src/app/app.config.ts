@@ -5,7 +5,8 @@ import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { createSolverWorker } from '../workers/solver-worker-factory';
 import { routes } from './app.routes';
 import { authInterceptor } from './core/auth-interceptor';
-import { SOLVER } from './core/solver-client';
+import { SOLVER, workerGeometryChecks } from './core/solver-client';
+import { GEOMETRY_CHECKS } from './features/sketch/live-checks';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -14,6 +15,8 @@ export const appConfig: ApplicationConfig = {
     provideRouter(routes, withComponentInputBinding()),
     provideHttpClient(withFetch(), withInterceptors([authInterceptor])),
     { provide: SOLVER, useFactory: createSolverWorker },
+    // The sketch's live geometry checks run in the solver worker.
+    { provide: GEOMETRY_CHECKS, useFactory: workerGeometryChecks },
     // Outlined fields keep their labels at the dense setting of our theme (filled ones hide them below density -1).
     { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } satisfies MatFormFieldDefaultOptions },
   ],

@@ -1,3 +1,4 @@
+import type { DesignProblem } from '../../shared/design';
 import type { Comparison } from '../../solver/compare';
 import type { UnitResponses } from '../../solver/planner';
 import type { SolveProgress, SolveResult } from '../../solver/solve';
@@ -47,6 +48,8 @@ export interface SolverApi {
   measure(design: unknown): Promise<LayoutMeasure>;
   /** Solves; progress goes to the (comlink-proxied) callback, a few times a second at most. */
   solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome>;
+  /** The sketch's live geometry checks on a coarse grid (no notes about resolution). */
+  checkGeometry(design: unknown): Promise<DesignProblem[]>;
 }
 
 /** Progress of an analysis (several solves, then maybe a trace): what is running and how far overall, in [0, 1]. */

@@ -1,8 +1,10 @@
 /// <reference lib="webworker" />
 import { expose, releaseProxy, transfer, type Remote } from 'comlink';
+import type { DesignDocument } from '../../shared/design';
 import type { SolveProgress } from '../../solver/solve';
 import type { AnalysisApi, AnalysisProgress, LayoutMeasure, SolverApi } from './solver-api';
 import { compareOutcome, comparisonBuffers, responsesBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
+import { liveProblems } from './worker-live-checks';
 import { measureLayout, resultBuffers, solveOutcome, throttledProgress } from './worker-solve';
 
 /**
@@ -41,6 +43,9 @@ const api: SolverApi & AnalysisApi = {
   },
   async measure(design) {
     return measureOf(design);
+  },
+  async checkGeometry(design) {
+    return liveProblems(design as DesignDocument);
   },
   async solve(design, options, onProgress) {
     const remote = onProgress as Remote<(p: SolveProgress) => void> | undefined;

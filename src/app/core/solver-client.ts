@@ -1,6 +1,8 @@
 import { InjectionToken, inject } from '@angular/core';
 import { proxy, wrap, type Remote } from 'comlink';
+import type { DesignDocument, DesignProblem } from '../../../shared/design';
 import type { SolveProgress } from '../../../solver/solve';
+import type { GeometryChecks } from '../features/sketch/live-checks';
 import type {
   AnalysisApi,
   AnalysisProgress,
@@ -62,6 +64,17 @@ export const ANALYSIS = new InjectionToken<AnalysisClient>('Osmolane analyses in
   factory: () => inject(SOLVER) as unknown as AnalysisClient,
 });
 
+/** The worker's live geometry checks, for the sketch. */
+export interface GeometryClient {
+  checkGeometry(design: DesignDocument): Promise<DesignProblem[]>;
+}
+
+/** The sketch's GEOMETRY_CHECKS in the app: the solver worker's (the SOLVER must be a WorkerSolverClient). */
+export function workerGeometryChecks(): GeometryChecks {
+  const solver = inject(SOLVER) as unknown as GeometryClient;
+  return (doc) => solver.checkGeometry(doc);
+}
+
 const CANCELLED_ERROR: SolveFailure = { code: 'cancelled', message: 'The solve was stopped.' };
 export const CANCELLED: SolveOutcome = { ok: false, error: CANCELLED_ERROR };
 
@@ -95,7 +108,7 @@ class WorkerHandle {
 class WorkerEnded extends Error {}
 
 /** The SolverClient (and AnalysisClient) over a real worker, started on first use and again after a cancel. */
-export class WorkerSolverClient implements SolverClient, AnalysisClient {
+export class WorkerSolverClient implements SolverClient, AnalysisClient, GeometryClient {
   private handle: WorkerHandle | null = null;
   private solving: WorkerHandle | null = null;
 
@@ -112,6 +125,11 @@ export class WorkerSolverClient implements SolverClient, AnalysisClient {
 
   measure(design: unknown): Promise<LayoutMeasure> {
     return this.current().call((r) => r.measure(design));
+  }
+
+  /** Not exclusive: waits behind a solve in flight rather than stopping it. */
+  checkGeometry(design: DesignDocument): Promise<DesignProblem[]> {
+    return this.current().call((r) => r.checkGeometry(design));
   }
 
   solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome> {

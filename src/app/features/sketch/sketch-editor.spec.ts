@@ -3,6 +3,8 @@ import { MatTooltip } from '@angular/material/tooltip';
 import { By } from '@angular/platform-browser';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import { SketchCanvas } from './sketch-canvas';
+import { liveProblems } from '../../../workers/worker-live-checks';
+import { GEOMETRY_CHECKS } from './live-checks';
 import { SketchEditor } from './sketch-editor';
 
 function design(partial: Partial<DesignDocument> = {}): DesignDocument {
@@ -30,7 +32,11 @@ describe('SketchEditor', () => {
   let emitted: DesignDocument[];
 
   async function create(doc: DesignDocument, readOnly = false): Promise<HTMLElement> {
-    await TestBed.configureTestingModule({ imports: [SketchEditor] }).compileComponents();
+    // The worker's checks, run here in place of the worker (async, as the worker answers).
+    await TestBed.configureTestingModule({
+      imports: [SketchEditor],
+      providers: [{ provide: GEOMETRY_CHECKS, useValue: async (doc: DesignDocument) => liveProblems(doc) }],
+    }).compileComponents();
     fixture = TestBed.createComponent(SketchEditor);
     fixture.componentRef.setInput('document', doc);
     fixture.componentRef.setInput('readOnly', readOnly);

@@ -1,6 +1,6 @@
-import { parseDesign, type DesignDocument } from '../../../../shared/design';
-import { liveProblems } from './live-checks';
-import { junctionShapes } from './tool-geometry';
+import { parseDesign, type DesignDocument } from '../../shared/design';
+import { junctionShapes } from '../app/features/sketch/tool-geometry';
+import { liveProblems } from './worker-live-checks';
 
 function design(partial: Record<string, unknown>): DesignDocument {
   const r = parseDesign({
