@@ -18,7 +18,7 @@ import { setFlagsFromString } from 'node:v8';
 import { runInNewContext } from 'node:vm';
 import { discretiseDesign } from '../solver/grid/discretise';
 import type { CutCellGrid } from '../solver/grid/cut-cell-grid';
-import { multigridPcg } from '../solver/multigrid';
+import { multigridPcg, operatorBytes } from '../solver/multigrid';
 import { electrodePieces, laplaceOperator, portConductances, portRightHandSide, solvePotential } from '../solver/potential';
 import { loadFixture } from '../tests/fixtures/designs';
 import { cpuSeconds, jacobiSpectralRadius, optimalOmega, runSor, timeGridPass, timeStreamingPass } from './potential-baselines';
@@ -55,9 +55,7 @@ function solverBytes(grid: CutCellGrid, active: Uint8Array): number {
   for (const level of mg.hierarchy.levels) {
     // The finest level's faces are the grid's apertures when every fluid cell is active (counted with the grid).
     const shared = level.gx === grid.apertureX;
-    bytes += (shared ? 0 : level.gx.byteLength + level.gy.byteLength) + level.reaction.byteLength + level.boundary.byteLength +
-      level.active.byteLength + level.diag.byteLength + (level.inverseDiag?.byteLength ?? 0) +
-      (level.runs?.byteLength ?? 0) + (level.rowRuns?.byteLength ?? 0);
+    bytes += operatorBytes(level) - (shared ? level.gx.byteLength + level.gy.byteLength : 0);
   }
   for (const arrays of [mg.hierarchy.b, mg.hierarchy.x]) for (const a of arrays) bytes += a.byteLength;
   const c = mg.hierarchy.coarsest;

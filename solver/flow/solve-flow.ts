@@ -7,7 +7,7 @@
  * bounded from Hele-Shaw (d ≪ w) to Stokes (d ≫ w) (Elman, Silvester & Wathen 2014, ch. 4 and 9).
  */
 import { buildHierarchy, type Hierarchy } from '../multigrid/cycle';
-import type { Operator5 } from '../multigrid/operator';
+import { operatorBytes, type Operator5 } from '../multigrid/operator';
 import { mergedCouplings, mergeSmallCells } from './cell-merging';
 import { cellFieldFromFaces, faceField, wallSlip } from './face-field';
 import { depthFriction, type FlowProblem } from './flow-problem';
@@ -164,8 +164,7 @@ function releaseAssemblyArrays(h: Hierarchy): void {
 
 function hierarchyBytes(h: Hierarchy): number {
   let n = 0;
-  for (const op of h.levels) n += op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength + (op.inverseDiag?.byteLength ?? 0) + op.active.byteLength +
-    (op.runs?.byteLength ?? 0) + (op.rowRuns?.byteLength ?? 0);
+  for (const op of h.levels) n += operatorBytes(op);
   for (const list of [h.b, h.x]) for (const a of list) n += a.byteLength;
   const coarsest = h.coarsest as { unknowns?: number; bandwidth?: number };
   if (coarsest.unknowns !== undefined && coarsest.bandwidth !== undefined) n += coarsest.unknowns * (coarsest.bandwidth + 2) * 8;

@@ -11,33 +11,37 @@ import { prepared, type Operator5 } from './operator';
 /** q = A p on row j; returns Σ p_c q_c over the row. */
 function applyRow(op: Operator5, p: Float64Array, q: Float64Array, j: number): number {
   const { n1, n2, gx, gy, diag } = op;
-  const runs = op.runs!, rowRuns = op.rowRuns!;
-  const last = rowRuns[j + 1];
+  const { bounds, rowStart, conductance } = op.stretches!;
+  const inside = j > 0 && j < n2 - 1;
   let pq = 0;
-  if (j > 0 && j < n2 - 1) {
-    for (let k = rowRuns[j]; k < last; k += 2) {
-      const end = runs[k + 1];
-      for (let c = runs[k]; c < end; c++) {
+  for (let t = rowStart[j], last = rowStart[j + 1]; t < last; t++) {
+    const first = bounds[2 * t], end = bounds[2 * t + 1];
+    const g = conductance[t];
+    if (g > 0) {
+      for (let c = first; c < end; c++) {
+        const s = g * (4 * p[c] - p[c - 1] - p[c + 1] - p[c - n1] - p[c + n1]);
+        q[c] = s;
+        pq += p[c] * s;
+      }
+    } else if (inside) {
+      for (let c = first; c < end; c++) {
         const f = c + j; // gx index of the face left of c
         const s = diag[c] * p[c] - gx[f] * p[c - 1] - gx[f + 1] * p[c + 1] - gy[c] * p[c - n1] - gy[c + n1] * p[c + n1];
         q[c] = s;
         pq += p[c] * s;
       }
-    }
-    return pq;
-  }
-  for (let k = rowRuns[j]; k < last; k += 2) {
-    const end = runs[k + 1];
-    for (let c = runs[k]; c < end; c++) {
-      const f = c + j;
-      let s = diag[c] * p[c];
-      const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
-      if (w !== 0) s -= w * p[c - 1];
-      if (e !== 0) s -= e * p[c + 1];
-      if (so !== 0) s -= so * p[c - n1];
-      if (no !== 0) s -= no * p[c + n1];
-      q[c] = s;
-      pq += p[c] * s;
+    } else {
+      for (let c = first; c < end; c++) {
+        const f = c + j;
+        let s = diag[c] * p[c];
+        const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
+        if (w !== 0) s -= w * p[c - 1];
+        if (e !== 0) s -= e * p[c + 1];
+        if (so !== 0) s -= so * p[c - n1];
+        if (no !== 0) s -= no * p[c + n1];
+        q[c] = s;
+        pq += p[c] * s;
+      }
     }
   }
   return pq;

@@ -1,4 +1,4 @@
-export { apply, createOperator, finishOperator, residual, type Operator5 } from './operator';
+export { apply, createOperator, finishOperator, operatorBytes, residual, type Operator5 } from './operator';
 export { coarsen, prolongAdd, prolongCorrection, restrict, restrictResidual } from './coarsen';
 export { buildHierarchy, cycleFromZero, vcycle, type Coarsening, type Hierarchy } from './cycle';
 export { coarsenWithExtents, unitExtents, type Extents } from './coarsen-extents';

@@ -1,3 +1,5 @@
+import { findStretches, StretchList, type Stretches } from './stretches';
+
 /**
  * A symmetric five-point operator on an n1 × n2 box of control volumes (index c = i + j·n1),
  * written as face conductances plus a diagonal part:
@@ -25,8 +27,6 @@ export interface Operator5 {
   active: Uint8Array;
   /** Σ g + reaction + boundary per volume; filled by `finishOperator`. */
   diag: Float64Array;
-  /** 1 / diag on active volumes, 0 elsewhere; filled by `finishOperator` (relaxation multiplies by it). */
-  inverseDiag?: Float64Array;
   /**
    * Runs of active volumes, row by row: pairs [first, end) of volume indices. Filled by `finishOperator`
    * (or on first use); the kernels loop over these only, so solid regions of the box cost nothing.
@@ -34,6 +34,8 @@ export interface Operator5 {
   runs?: Int32Array;
   /** rowRuns[j] is the index in `runs` of the first run of row j; rowRuns[n2] = runs.length. */
   rowRuns?: Int32Array;
+  /** The runs cut where the stencil changes between uniform and general (stretches.ts); by `finishOperator`. */
+  stretches?: Stretches;
 }
 
 /** An operator of n1 × n2 inactive volumes; `reaction: false` leaves out the reaction term (length 0). */
@@ -53,32 +55,37 @@ export function createOperator(n1: number, n2: number, options: { reaction?: boo
 
 /**
  * Clears the conductances of active volumes' faces that lead to an inactive volume or out of the box, and
- * computes the diagonal, its inverse and the runs of active volumes: the runs from `active` alone, then the
- * rest on the runs only, so the solid part of the box costs one byte read per volume. A volume whose
- * diagonal is zero (no face, no reaction, no boundary) is made inactive. On inactive volumes diag and
- * inverseDiag are 0; faces between two inactive volumes are left as they are (nothing reads them). Values that
- * do not change are not written again (the face arrays may be the grid's own).
+ * computes the diagonal, the runs of active volumes and their stretches (stretches.ts): the runs from `active`
+ * alone, then the rest on the runs only, so the solid part of the box costs one byte read per volume. A volume
+ * whose diagonal is zero (no face, no reaction, no boundary) is made inactive. On inactive volumes diag is 0;
+ * faces between two inactive volumes are left as they are (nothing reads them). Values that do not change are
+ * not written again (the face arrays may be the grid's own).
  */
 export function finishOperator(op: Operator5): Operator5 {
   findRuns(op);
-  if (!closeAndSum(op)) findRuns(op); // some volume had no conductance at all and was dropped
+  if (!closeAndSum(op)) {
+    // Some volume had no conductance at all and was dropped: the runs and stretches are out of date.
+    findRuns(op);
+    op.stretches = findStretches(op);
+  }
   return op;
 }
 
 /**
- * The face, diagonal and inverse-diagonal work of finishOperator over the runs found by findRuns; false when a
- * volume with a zero diagonal was made inactive (the runs are then out of date). Inside a run the left and
+ * The face and diagonal work of finishOperator over the runs found by findRuns, telling uniform volumes apart on
+ * the way (the stretches); false when a volume with a zero diagonal was made inactive. Inside a run the left and
  * right neighbours are active, at its ends they are not; only the vertical neighbours need looking up.
  */
 function closeAndSum(op: Operator5): boolean {
   const { n1, n2, gx, gy, reaction, boundary, active, diag } = op;
   const runs = op.runs!, rowRuns = op.rowRuns!;
-  const inverse = new Float64Array(n1 * n2);
   const withReaction = reaction.length > 0, withBoundary = boundary.length > 0;
+  const stretches = new StretchList(n2);
   let from = 0; // diag is 0 off the runs
   let dropped = false;
   for (let j = 0; j < n2; j++) {
     const below = j > 0, above = j < n2 - 1;
+    stretches.row(j);
     for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
       const first = runs[k], end = runs[k + 1];
       if (first > from) diag.fill(0, from, first);
@@ -86,30 +93,34 @@ function closeAndSum(op: Operator5): boolean {
       // The faces at the ends of the run lead to an inactive volume or out of the box.
       if (gx[first + j] !== 0) gx[first + j] = 0;
       if (gx[end + j] !== 0) gx[end + j] = 0;
+      stretches.run(first);
       for (let c = first; c < end; c++) {
         const f = c + j; // face left of c in gx
         let so = gy[c], no = gy[c + n1];
         if (so !== 0 && !(below && active[c - n1] !== 0)) gy[c] = so = 0;
         if (no !== 0 && !(above && active[c + n1] !== 0)) gy[c + n1] = no = 0;
-        const d = gx[f] + gx[f + 1] + so + no + (withReaction ? reaction[c] : 0) + (withBoundary ? boundary[c] : 0);
+        const w = gx[f], e = gx[f + 1];
+        const d = w + e + so + no + (withReaction ? reaction[c] : 0) + (withBoundary ? boundary[c] : 0);
         if (d > 0) {
           diag[c] = d;
-          inverse[c] = 1 / d;
         } else {
           active[c] = 0; // its faces are all 0 already (d is their sum)
           diag[c] = 0;
           dropped = true;
         }
+        stretches.volume(c, below && above && w > 0 && w === e && w === so && w === no && d === 4 * w ? w : 0);
       }
+      stretches.end(end);
     }
   }
   if (from < diag.length) diag.fill(0, from);
-  op.inverseDiag = inverse;
+  op.stretches = stretches.done();
   return !dropped;
 }
 
 /** Runs and their first index per row from `active` alone (for an operator that was not finished). */
 export function findRuns(op: Operator5): void {
+  op.stretches = undefined;
   const { n1, n2, active } = op;
   const runs: number[] = [];
   const rowRuns = new Int32Array(n2 + 1);
@@ -136,21 +147,18 @@ export function activeRuns(op: Operator5): Int32Array {
   return op.runs!;
 }
 
-/** What the kernels read besides the operator's arrays: the runs, their first index per row, 1 / diag. */
+/** What the kernels read besides the operator's arrays: the runs, their first index per row, the stretches. */
 export interface Prepared {
   runs: Int32Array;
   rowRuns: Int32Array;
-  inverseDiag: Float64Array;
+  stretches: Stretches;
 }
 
+/** The kernels' view of an operator; one that `finishOperator` did not make gets these derived here. */
 export function prepared(op: Operator5): Prepared {
   const runs = activeRuns(op);
-  if (!op.inverseDiag) {
-    const { diag, active } = op;
-    op.inverseDiag = new Float64Array(diag.length);
-    for (let c = 0; c < diag.length; c++) if (active[c]) op.inverseDiag[c] = 1 / diag[c];
-  }
-  return { runs, rowRuns: op.rowRuns!, inverseDiag: op.inverseDiag };
+  op.stretches ??= findStretches(op);
+  return { runs, rowRuns: op.rowRuns!, stretches: op.stretches };
 }
 
 /** (A x)_c on the active volumes only; inactive entries of `out` are left as they are. */
@@ -209,4 +217,12 @@ export function residual(op: Operator5, x: Float64Array, b: Float64Array, r: Flo
     }
   }
   zeroInactive(op, r);
+}
+
+/** Bytes of the typed arrays an operator holds (its faces included, whether or not they are shared). */
+export function operatorBytes(op: Operator5): number {
+  const s = op.stretches;
+  return op.gx.byteLength + op.gy.byteLength + op.reaction.byteLength + op.boundary.byteLength + op.diag.byteLength +
+    op.active.byteLength + (op.runs?.byteLength ?? 0) + (op.rowRuns?.byteLength ?? 0) +
+    (s ? s.bounds.byteLength + s.rowStart.byteLength + s.conductance.byteLength : 0);
 }

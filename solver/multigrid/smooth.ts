@@ -1,65 +1,84 @@
 import { prepared, type Operator5 } from './operator';
 
 /**
- * Red–black Gauss–Seidel relaxation of A x = b, row by row over the runs of active volumes. The colour of
- * volume (i, j) is (i + j) mod 2; a volume of one colour has neighbours of the other only, so the volumes of a
- * colour can be relaxed in any order, and one colour in row j needs the other colour only in rows j − 1 … j + 1.
+ * Red–black Gauss–Seidel relaxation of A x = b, row by row over the stretches of active volumes (stretches.ts).
+ * The colour of volume (i, j) is (i + j) mod 2; a volume of one colour has neighbours of the other only, so the
+ * volumes of a colour can be relaxed in any order, and one colour in row j needs the other only in rows j − 1 … j + 1.
  *
  * The stencils carry no tests: inside rows 1 … n2 − 2 every neighbour index exists, a closed face is 0, and x
  * is finite everywhere (the solvers keep it 0 off the active volumes), so g·x_neighbour adds exactly 0 across
  * a closed face. The first and last rows, whose outer neighbours lie outside the arrays, keep the tests.
- * Each update multiplies by the stored 1 / diag (Operator5.inverseDiag).
+ * Uniform volumes read no coefficient at all (one reciprocal per stretch); general ones divide by diag.
  */
 
 /** x_c = (b_c + Σ g x_nb) / d_c for the volumes of `colour` in row j. */
 export function relaxRow(op: Operator5, x: Float64Array, b: Float64Array, j: number, colour: number): void {
-  if (j === 0 || j === op.n2 - 1) {
-    relaxOnEdge(op.n1, op.gx, op.gy, op.inverseDiag!, op.runs!, op.rowRuns!, x, b, j, colour);
-    return;
-  }
-  const { n1, gx, gy } = op;
-  const runs = op.runs!, rowRuns = op.rowRuns!, inv = op.inverseDiag!;
+  const { n1, n2, gx, gy, diag } = op;
+  const { bounds, rowStart, conductance } = op.stretches!;
   const shift = j * n1 - j - colour; // (c − shift) & 1 is 0 on the volumes of `colour`
-  for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
-    const first = runs[k], end = runs[k + 1];
-    let c = first + ((first - shift) & 1);
-    let west = x[c - 1]; // the east neighbour of one volume is the west one of the next
-    for (; c < end; c += 2) {
-      const f = c + j; // gx index of the face left of c
-      const east = x[c + 1];
-      x[c] = (b[c] + gx[f] * west + gx[f + 1] * east + gy[c] * x[c - n1] + gy[c + n1] * x[c + n1]) * inv[c];
-      west = east;
-    }
+  const inside = j > 0 && j < n2 - 1;
+  for (let s = rowStart[j], last = rowStart[j + 1]; s < last; s++) {
+    const first = bounds[2 * s], end = bounds[2 * s + 1];
+    const start = first + ((first - shift) & 1);
+    const g = conductance[s];
+    if (g > 0) relaxUniform(n1, g, x, b, start, end);
+    else if (inside) relaxGeneral(n1, gx, gy, diag, x, b, j, start, end);
+    else relaxOnEdge(n1, gx, gy, diag, x, b, j, start, end);
+  }
+}
+
+/** Every other volume from `start` to `end`, all with four faces g and diagonal 4g. */
+function relaxUniform(n1: number, g: number, x: Float64Array, b: Float64Array, start: number, end: number): void {
+  const inv = 1 / (4 * g); // diag = 4g exactly there
+  let c = start;
+  for (; c + 2 < end; c += 4) {
+    x[c] = (b[c] + g * (x[c - 1] + x[c + 1] + x[c - n1] + x[c + n1])) * inv;
+    const d = c + 2;
+    x[d] = (b[d] + g * (x[d - 1] + x[d + 1] + x[d - n1] + x[d + n1])) * inv;
+  }
+  if (c < end) x[c] = (b[c] + g * (x[c - 1] + x[c + 1] + x[c - n1] + x[c + n1])) * inv;
+}
+
+function relaxGeneral(
+  n1: number, gx: Float64Array, gy: Float64Array, diag: Float64Array,
+  x: Float64Array, b: Float64Array, j: number, start: number, end: number,
+): void {
+  for (let c = start; c < end; c += 2) {
+    const f = c + j; // gx index of the face left of c
+    x[c] = (b[c] + gx[f] * x[c - 1] + gx[f + 1] * x[c + 1] + gy[c] * x[c - n1] + gy[c + n1] * x[c + n1]) / diag[c];
   }
 }
 
 function relaxOnEdge(
-  n1: number, gx: Float64Array, gy: Float64Array, inv: Float64Array, runs: Int32Array, rowRuns: Int32Array,
-  x: Float64Array, b: Float64Array, j: number, colour: number,
+  n1: number, gx: Float64Array, gy: Float64Array, diag: Float64Array,
+  x: Float64Array, b: Float64Array, j: number, start: number, end: number,
 ): void {
-  const shift = j * n1 - j - colour;
-  for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
-    const first = runs[k], end = runs[k + 1];
-    for (let c = first + ((first - shift) & 1); c < end; c += 2) {
-      const f = c + j;
-      let s = b[c];
-      const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
-      if (w !== 0) s += w * x[c - 1];
-      if (e !== 0) s += e * x[c + 1];
-      if (so !== 0) s += so * x[c - n1];
-      if (no !== 0) s += no * x[c + n1];
-      x[c] = s * inv[c];
-    }
+  for (let c = start; c < end; c += 2) {
+    const f = c + j;
+    let s = b[c];
+    const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
+    if (w !== 0) s += w * x[c - 1];
+    if (e !== 0) s += e * x[c + 1];
+    if (so !== 0) s += so * x[c - n1];
+    if (no !== 0) s += no * x[c + n1];
+    x[c] = s / diag[c];
   }
 }
 
 /** x_c = b_c / d_c for the volumes of colour 0 in row j: their relaxation when every x is 0. */
 function relaxRowFromZero(op: Operator5, x: Float64Array, b: Float64Array, j: number): void {
-  const runs = op.runs!, rowRuns = op.rowRuns!, inv = op.inverseDiag!;
+  const { diag } = op;
+  const { bounds, rowStart, conductance } = op.stretches!;
   const shift = j * op.n1 - j;
-  for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
-    const end = runs[k + 1];
-    for (let c = runs[k] + ((runs[k] - shift) & 1); c < end; c += 2) x[c] = b[c] * inv[c];
+  for (let s = rowStart[j], last = rowStart[j + 1]; s < last; s++) {
+    const first = bounds[2 * s], end = bounds[2 * s + 1];
+    const g = conductance[s];
+    if (g > 0) {
+      const inv = 1 / (4 * g);
+      for (let c = first + ((first - shift) & 1); c < end; c += 2) x[c] = b[c] * inv;
+    } else {
+      for (let c = first + ((first - shift) & 1); c < end; c += 2) x[c] = b[c] / diag[c];
+    }
   }
 }
 
