@@ -2,18 +2,14 @@ import type { DesignDocument, Port } from '../../shared/design';
 import type { Vec2 } from '../geometry/ring';
 import { electroosmoticMobility } from '../physics/electrokinetics';
 import { SolveError } from '../result/errors';
+import type { CrossRoles } from '../../shared/cross-roles';
 import type { PhaseSpec } from './protocol';
 import type { Injection } from './trace';
 
-const { hypot, abs, max, min } = Math;
+/** The port roles of a cross and their guess from names live in shared/cross-roles.ts (the app guesses them too). */
+export { guessCrossRoles, type CrossRoles } from '../../shared/cross-roles';
 
-/** The four reservoirs of a cross injector. */
-export interface CrossRoles {
-  sample: string;
-  sampleWaste: string;
-  buffer: string;
-  waste: string;
-}
+const { hypot, abs, max, min } = Math;
 
 /**
  * A pinched plug at a cross (pinched injection): sample fills the sample leg, loading draws it across the cross
@@ -31,20 +27,6 @@ export interface PinchedPlug {
   detector: { from: Vec2; to: Vec2 };
   /** Loading (with a duration) and dispensing (until the plug has passed the detector). */
   phases: [PhaseSpec, PhaseSpec];
-}
-
-/** Ports named or labelled as a cross injector's (S, SW, B, W or sample, sample waste, buffer, waste). */
-export function guessCrossRoles(design: Pick<DesignDocument, 'ports'>): CrossRoles | null {
-  const find = (id: string, name: RegExp) =>
-    design.ports.find((p) => p.id.toUpperCase() === id) ?? design.ports.find((p) => name.test((p.name ?? '').trim()));
-  const sample = find('S', /^sample$/i);
-  const sampleWaste = find('SW', /^sample[ -]?waste$/i);
-  const buffer = find('B', /^(run(ning)? )?buffer$/i);
-  const waste = find('W', /^(buffer )?waste$/i);
-  if (!sample || !sampleWaste || !buffer || !waste) return null;
-  const ids = [sample.id, sampleWaste.id, buffer.id, waste.id];
-  if (new Set(ids).size < 4) return null;
-  return { sample: sample.id, sampleWaste: sampleWaste.id, buffer: buffer.id, waste: waste.id };
 }
 
 /**
