@@ -1,4 +1,4 @@
-import { createOperator, finishOperator, type Operator5 } from './operator';
+import { activeRuns, createOperator, finishOperator, type Operator5 } from './operator';
 
 /**
  * Coarsening that re-discretises on partly filled aggregates (a variant of `coarsen` in coarsen.ts).
@@ -23,7 +23,8 @@ import { createOperator, finishOperator, type Operator5 } from './operator';
  * the side on which a child lacks a link. With full aggregates and boundaries half a cell away this is exactly
  * the half-sum rule. (Finite-volume coarse operators from centre distances: W. Hackbusch, Multi-Grid Methods
  * and Applications, 1985, ch. 3; the agglomeration view of M.-H. Lallemand, H. Steve & A. Dervieux,
- * Computers & Fluids 21, 397 (1992).)
+ * Computers & Fluids 21, 397 (1992).) Every loop visits the runs of active fine volumes (Operator5.runs), not the
+ * box: a layout's fluid may fill a few per cent of it.
  */
 export interface Extents {
   x: Float64Array;
@@ -37,7 +38,8 @@ export interface Extents {
 /** Extents of the finest level: 1 on active volumes; boundary distance as given, else half a cell. */
 export function unitExtents(op: Operator5, distance?: Float64Array): Extents {
   const x = new Float64Array(op.n1 * op.n2);
-  for (let c = 0; c < x.length; c++) x[c] = op.active[c];
+  const runs = activeRuns(op);
+  for (let k = 0; k < runs.length; k += 2) x.fill(1, runs[k], runs[k + 1]);
   return { x, y: x.slice(), distance: distance ?? new Float64Array(x.length).fill(0.5), spacing: 1 };
 }
 
@@ -50,30 +52,41 @@ export function coarsenWithExtents(fine: Operator5, fineExtents: Extents): { op:
   const ey = new Float64Array(n1 * n2);
   const length = new Float64Array(n1 * n2);
   const { x: fx, y: fy, distance: fd, spacing: H } = fineExtents;
-  const fsx = fine.n1 + 1, csx = n1 + 1;
-  const at = (i: number, j: number) => (i < fine.n1 && j < fine.n2 && fine.active[i + j * fine.n1] ? i + j * fine.n1 : -1);
-  const sum = (e: Float64Array, a: number, b: number) => (a >= 0 ? e[a] : 0) + (b >= 0 ? e[b] : 0);
+  const fn1 = fine.n1, fsx = fn1 + 1, csx = n1 + 1;
+  const { active, gx, gy } = fine;
+  const runs = activeRuns(fine);
 
-  for (let J = 0; J < n2; J++) {
-    for (let I = 0; I < n1; I++) {
-      const i = 2 * I, j = 2 * J;
-      const C = I + J * n1;
-      ex[C] = 0.5 * Math.max(sum(fx, at(i, j), at(i + 1, j)), sum(fx, at(i, j + 1), at(i + 1, j + 1)));
-      ey[C] = 0.5 * Math.max(sum(fy, at(i, j), at(i, j + 1)), sum(fy, at(i + 1, j), at(i + 1, j + 1)));
-      if (ex[C] > 0) op.active[C] = 1;
+  // Summed extents of each aggregate's active children along its lower and upper row (x), left and right
+  // column (y); e_A is half the larger of the two.
+  const rowLo = new Float64Array(n1 * n2), rowHi = new Float64Array(n1 * n2);
+  const colLo = new Float64Array(n1 * n2), colHi = new Float64Array(n1 * n2);
+  for (let k = 0; k < runs.length; k += 2) {
+    const j = (runs[k] / fn1) | 0, row = j * fn1, parents = (j >> 1) * n1;
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      const i = c - row, C = parents + (i >> 1);
+      (j & 1 ? rowHi : rowLo)[C] += fx[c];
+      (i & 1 ? colHi : colLo)[C] += fy[c];
+      op.active[C] = 1;
     }
   }
-  for (let j = 0; j < fine.n2; j++) {
-    for (let i = 0; i < fine.n1; i++) {
-      const c = at(i, j);
-      if (c < 0) continue;
-      const C = (i >> 1) + (j >> 1) * n1;
+  for (let k = 0; k < runs.length; k += 2) {
+    const j = (runs[k] / fn1) | 0, row = j * fn1, parents = (j >> 1) * n1;
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      const C = parents + ((c - row) >> 1);
+      ex[C] = 0.5 * Math.max(rowLo[C], rowHi[C]);
+      ey[C] = 0.5 * Math.max(colLo[C], colHi[C]);
+    }
+  }
+  for (let k = 0; k < runs.length; k += 2) {
+    const j = (runs[k] / fn1) | 0, row = j * fn1, parents = (j >> 1) * n1;
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      const i = c - row, C = parents + (i >> 1);
       if (withReaction) op.reaction[C] += fine.reaction[c];
       const g = fine.boundary[c];
       if (g === 0) continue;
       // Across which axis does the boundary lie? The one on which this volume misses a link.
-      const wallX = fine.gx[i + j * fsx] === 0 || fine.gx[i + 1 + j * fsx] === 0;
-      const wallY = fine.gy[c] === 0 || fine.gy[c + fine.n1] === 0;
+      const wallX = gx[c + j] === 0 || gx[c + j + 1] === 0;
+      const wallY = gy[c] === 0 || gy[c + fn1] === 0;
       const ox = (ex[C] * 2 * H - fx[c] * H) / 2, oy = (ey[C] * 2 * H - fy[c] * H) / 2;
       const shift = wallX === wallY ? (ox + oy) / 2 : wallX ? ox : oy;
       const ell = g * fd[c];
@@ -82,24 +95,22 @@ export function coarsenWithExtents(fine: Operator5, fineExtents: Extents): { op:
     }
   }
   const distance = new Float64Array(n1 * n2);
-  for (let C = 0; C < n1 * n2; C++) if (op.boundary[C] > 0) distance[C] = length[C] / op.boundary[C];
-  // Links between aggregates: the fine faces on even lines.
-  for (let j = 0; j < fine.n2; j++) {
-    for (let i = 2; i < fine.n1; i += 2) {
-      const g = fine.gx[i + j * fsx];
-      const a = at(i - 1, j), b = at(i, j);
-      if (g === 0 || a < 0 || b < 0) continue;
-      const A = ((i - 1) >> 1) + (j >> 1) * n1;
-      op.gx[(i >> 1) + (j >> 1) * csx] += (g * (fx[a] + fx[b])) / (2 * (ex[A] + ex[A + 1]));
-    }
-  }
-  for (let j = 2; j < fine.n2; j += 2) {
-    for (let i = 0; i < fine.n1; i++) {
-      const g = fine.gy[i + j * fine.n1];
-      const a = at(i, j - 1), b = at(i, j);
-      if (g === 0 || a < 0 || b < 0) continue;
-      const A = (i >> 1) + ((j - 1) >> 1) * n1;
-      op.gy[(i >> 1) + (j >> 1) * n1] += (g * (fy[a] + fy[b])) / (2 * (ey[A] + ey[A + n1]));
+  // Links between aggregates: the fine faces on even lines, between two active volumes.
+  for (let k = 0; k < runs.length; k += 2) {
+    const j = (runs[k] / fn1) | 0, row = j * fn1, parents = (j >> 1) * n1, faces = (j >> 1) * csx;
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      const i = c - row, C = parents + (i >> 1);
+      if (op.boundary[C] > 0) distance[C] = length[C] / op.boundary[C];
+      // Vertical face i (left of c), i even: both sides active when c − 1 is in the run.
+      if ((i & 1) === 0 && i >= 2 && c > runs[k]) {
+        const g = gx[c + j];
+        if (g !== 0) op.gx[(i >> 1) + faces] += (g * (fx[c - 1] + fx[c])) / (2 * (ex[C - 1] + ex[C]));
+      }
+      // Horizontal face j (below c), j even.
+      if ((j & 1) === 0 && j >= 2 && active[c - fn1]) {
+        const g = gy[c];
+        if (g !== 0) op.gy[C] += (g * (fy[c - fn1] + fy[c])) / (2 * (ey[C - n1] + ey[C]));
+      }
     }
   }
   return { op: finishOperator(op), extents: { x: ex, y: ey, distance, spacing: 2 * H } };
