@@ -112,6 +112,12 @@ describe('FieldsView', () => {
     expect(q('field-map')).not.toBeNull();
     expect(q('colour-bar')?.textContent).toContain('V');
     expect(q('metrics')?.textContent).toContain('Joule power');
+    await settle(fixture, 300); // the layout measure (narrowest channel) arrives from the worker
+    // The model's error against the exact duct at depth/width 0.4: between the +1.57 % (0.25) and +3.77 % (0.5)
+    // of the rectangular-duct table in reference-values.md §5.
+    const duct = /^\+(\d\.\d) % at depth\/width 0\.40$/.exec(q('duct-note')?.textContent?.trim() ?? '');
+    expect(Number(duct?.[1])).toBeGreaterThan(1.57);
+    expect(Number(duct?.[1])).toBeLessThan(3.77);
     expect(q('solve-status')?.getAttribute('data-solve-ms')).toMatch(/^\d/);
     // 40 V: no caution; the warnings list has no high-voltage entry.
     expect(q('fields-hv-caution')).toBeNull();

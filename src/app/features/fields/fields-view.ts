@@ -13,6 +13,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { ActivatedRoute, Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { DesignDocument } from '../../../../shared/design';
+import { ductError } from '../../../../shared/duct-model';
 import { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../../../shared/physics';
 import { readFieldBlob, writeFieldBlob } from '../../../../shared/field-blob';
 import type { SolveFields } from '../../../../solver/result/types';
@@ -154,6 +155,23 @@ export class FieldsView {
     const h = m.narrowest / this.resolution();
     const nx = Math.ceil((x1 - x0) / h) + 2, ny = Math.ceil((y1 - y0) / h) + 2;
     return `Narrowest ${formatQuantity(m.narrowest, 'length', { digits: 3 })} · grid ≈ ${nx} × ${ny}`;
+  });
+
+  /**
+   * The depth-averaged model's pressure-driven flow rate against the exact rectangular duct for the narrowest
+   * channel (physics.md §3: the UI states it for the user's aspect ratio).
+   */
+  protected readonly ductNote = computed(() => {
+    const narrowest = this.measure()?.narrowest;
+    if (!narrowest) return null;
+    const e = ductError(this.document().depth, narrowest);
+    const sign = e.error >= 0 ? '+' : '−';
+    return {
+      text: `${sign}${Math.abs(e.error * 100).toFixed(1)} % at depth/width ${e.aspect.toPrecision(2)}`,
+      tip:
+        'Pressure-driven flow rate of the depth-averaged (Brinkman) model against the exact rectangular-duct series ' +
+        'for the narrowest channel; slip-driven plug flow is not affected.',
+    };
   });
 
   // ---- what is shown

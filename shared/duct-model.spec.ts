@@ -1,4 +1,4 @@
-import { brinkmanFactor, ductError, exactDuctFactor } from './duct-error';
+import { brinkmanFactor, ductError, exactDuctFactor } from './duct-model';
 
 describe('model error against the exact rectangular duct', () => {
   it('gives the square duct its known flow rate, Q = 0.0351 a⁴ G / μ (White, Viscous Fluid Flow; value from memory)', () => {
