@@ -3,6 +3,7 @@
  * through faces with aperture > 0 (flood fill with an explicit stack).
  */
 import type { CutCellGrid } from './cut-cell-grid';
+import { fluidRuns, runLength } from './fluid-runs';
 
 export interface FluidComponents {
   /** Component of each cell (−1 for solid cells). */
@@ -17,12 +18,14 @@ export interface FluidComponents {
 export function labelComponents(grid: CutCellGrid): FluidComponents {
   const { nx, ny, fraction, apertureX, apertureY } = grid;
   const label = new Int32Array(nx * ny).fill(-1);
-  const stack = new Int32Array(nx * ny);
+  // Every fluid cell starts a fill unless an earlier one reached it: visit the runs of fluid cells.
+  const { runs } = fluidRuns(grid);
+  const stack = new Int32Array(Math.max(1, runLength(runs))); // a cell is pushed once, when labelled
   const sizes: number[] = [];
   const seeds: number[] = [];
   let count = 0;
-  for (let start = 0; start < nx * ny; start++) {
-    if (!(fraction[start] > 0) || label[start] >= 0) continue;
+  for (let k = 0; k < runs.length; k += 2) for (let start = runs[k]; start < runs[k + 1]; start++) {
+    if (label[start] >= 0) continue;
     let top = 0, size = 0, seed = start;
     stack[top++] = start;
     label[start] = count;

@@ -29,33 +29,47 @@ export function fluidRuns(grid: CutCellGrid): FluidRuns {
   return out;
 }
 
+/** Runs found while the grid was built (rasterise.ts), so that nobody scans the box for them. */
+export function rememberFluidRuns(grid: CutCellGrid, runs: FluidRuns): void {
+  found.set(grid.fraction, runs);
+}
+
+/** A growing list of run bounds. */
+export class RunList {
+  private list = new Int32Array(64);
+  count = 0;
+  push(first: number, end: number): void {
+    if (this.count + 2 > this.list.length) {
+      const grown = new Int32Array(2 * this.list.length);
+      grown.set(this.list);
+      this.list = grown;
+    }
+    this.list[this.count++] = first;
+    this.list[this.count++] = end;
+  }
+  array(): Int32Array {
+    return this.list.slice(0, this.count);
+  }
+}
+
 /** Runs of the cells where `mask` is positive (fraction > 0, active ≠ 0), row by row. */
 export function runsOf(mask: ArrayLike<number>, nx: number, ny: number): FluidRuns {
-  let list = new Int32Array(64);
-  let count = 0;
-  const push = (c: number) => {
-    if (count === list.length) {
-      const grown = new Int32Array(2 * list.length);
-      grown.set(list);
-      list = grown;
-    }
-    list[count++] = c;
-  };
+  const list = new RunList();
   const rowRuns = new Int32Array(ny + 1);
   for (let j = 0; j < ny; j++) {
-    rowRuns[j] = count;
+    rowRuns[j] = list.count;
     const row = j * nx, end = row + nx;
     let c = row;
     while (c < end) {
       while (c < end && !(mask[c] > 0)) c++;
       if (c === end) break;
-      push(c);
+      const first = c;
       while (c < end && mask[c] > 0) c++;
-      push(c);
+      list.push(first, c);
     }
   }
-  rowRuns[ny] = count;
-  return { runs: list.slice(0, count), rowRuns };
+  rowRuns[ny] = list.count;
+  return { runs: list.array(), rowRuns };
 }
 
 /** Number of cells in the runs. */

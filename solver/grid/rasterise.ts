@@ -24,6 +24,7 @@ import type { FluidRegion } from '../geometry/fluid-region';
 import { assignPorts, assignZeta, portCuts, type PortSegment } from './boundary-kinds';
 import { allocateSegments, type BoundarySegments, type CutCellGrid } from './cut-cell-grid';
 import { createPieces, splitEdge, type Pieces } from './edge-pieces';
+import { rememberFluidRuns, RunList, runLength } from './fluid-runs';
 
 /** Where the grid lies: nx × ny cells of edge `spacing` from (x0, y0). */
 export interface GridFrame {
@@ -110,12 +111,17 @@ export function rasterise(region: FluidRegion, frame: GridFrame, options: Raster
   const apertureY = new Float64Array(nx * (ny + 1));
   const partial = new Float64Array(nx);
   const rise = new Float64Array(nx); // Σ −dv per cell of the row
-  const holds = new Uint8Array(nx); // the cell holds outline pieces
 
+  // Between the cells that hold pieces the cover is constant along the row, so those spans are filled, not
+  // walked: the work is the pieces plus a fill per span. The runs of fluid cells (fraction > 0) come out on the way.
+  const runs = new RunList();
+  const rowRuns = new Int32Array(ny + 1);
   let p = 0;
   for (let j = 0; j < ny; j++) {
+    rowRuns[j] = runs.count;
     const rowStart = j * nx, rowEnd = rowStart + nx, up = (j + 1) * nx;
     apertureY.copyWithin(up, rowStart, rowEnd);
+    const first = p;
     for (; p < P && cell[order[p]] < rowEnd; p++) {
       const s = order[p];
       const i = cell[s] - rowStart;
@@ -123,23 +129,40 @@ export function rasterise(region: FluidRegion, frame: GridFrame, options: Raster
       partial[i] += -dv * (1 - (ax[s] - i + (bx[s] - i)) / 2);
       rise[i] -= dv;
       apertureY[up + i] += du;
-      holds[i] = 1;
     }
-    let cover = 0;
+    let cover = 0, from = 0, runStart = -1;
     const faceRow = j * (nx + 1);
-    for (let i = 0; i < nx; i++) {
-      apertureX[faceRow + i] = cover;
-      if (holds[i]) {
-        fraction[rowStart + i] = Math.max(MIN_CUT_FRACTION, Math.min(1, cover + partial[i]));
-        apertureY[up + i] = unit(apertureY[up + i]);
-        cover = unit(cover + rise[i]);
-        partial[i] = 0; rise[i] = 0; holds[i] = 0;
-      } else {
-        fraction[rowStart + i] = cover;
+    for (let q = first; q < p; q++) {
+      const i = cell[order[q]] - rowStart;
+      if (q > first && i === cell[order[q - 1]] - rowStart) continue;
+      // The span [from, i) at the current cover, then cell i with its pieces.
+      if (cover !== 0) {
+        fraction.fill(cover, rowStart + from, rowStart + i);
+        apertureX.fill(cover, faceRow + from, faceRow + i);
+        if (runStart < 0 && i > from) runStart = rowStart + from;
+      } else if (runStart >= 0 && i > from) {
+        runs.push(runStart, rowStart + from);
+        runStart = -1;
       }
+      apertureX[faceRow + i] = cover;
+      fraction[rowStart + i] = Math.max(MIN_CUT_FRACTION, Math.min(1, cover + partial[i]));
+      if (runStart < 0) runStart = rowStart + i;
+      apertureY[up + i] = unit(apertureY[up + i]);
+      cover = unit(cover + rise[i]);
+      partial[i] = 0; rise[i] = 0;
+      from = i + 1;
     }
-    apertureX[faceRow + nx] = cover;
+    if (cover !== 0) {
+      fraction.fill(cover, rowStart + from, rowEnd);
+      apertureX.fill(cover, faceRow + from, faceRow + nx + 1);
+      if (runStart < 0 && nx > from) runStart = rowStart + from;
+      if (runStart >= 0) runs.push(runStart, rowEnd);
+    } else if (runStart >= 0) {
+      runs.push(runStart, rowStart + from);
+    }
   }
+  rowRuns[ny] = runs.count;
+  const fluid = { runs: runs.array(), rowRuns };
 
   const cut = cutCentroids(pieces, order, frame, fraction, apertureX, apertureY);
 
@@ -151,8 +174,7 @@ export function rasterise(region: FluidRegion, frame: GridFrame, options: Raster
   const portLength = new Float64Array(ports.length);
   for (let t = 0; t < segments.count; t++) if (segments.port[t] >= 0) portLength[segments.port[t]] += segments.length[t];
 
-  let fluidCells = 0;
-  for (let c = 0; c < nx * ny; c++) if (fraction[c] > 0) fluidCells++;
+  const fluidCells = runLength(fluid.runs);
 
   const grid: CutCellGrid = {
     nx, ny, spacing: h, x0, y0, level: 0,
@@ -163,6 +185,7 @@ export function rasterise(region: FluidRegion, frame: GridFrame, options: Raster
     portLength,
     fluidCells,
   };
+  rememberFluidRuns(grid, fluid);
   return { grid, portOverlaps: kinds.overlaps };
 }
 
