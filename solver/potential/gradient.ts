@@ -17,6 +17,7 @@
  * area-weighted mean, the largest error about 2 % of the largest field at curved walls.
  */
 import { cutIndex, type CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 
 export interface CellField {
   /** E = −grad φ per cell (V/m); 0 outside `active`. */
@@ -79,7 +80,9 @@ export function electricField(
   };
   const fit = new Fit();
   let s = 0; // segments are sorted by cell
-  for (let c = 0; c < nx * ny; c++) {
+  // Active cells are fluid cells: visit the runs of fluid cells, not the box.
+  const { runs } = fluidRuns(grid);
+  for (let k = 0; k < runs.length; k += 2) for (let c = runs[k]; c < runs[k + 1]; c++) {
     while (s < seg.count && seg.cell[s] < c) s++;
     if (!active[c]) continue;
     const cx = centroid(c, 0), cy = centroid(c, 1);

@@ -8,6 +8,7 @@
  * discretisation error of the cell-centred field.
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
+import { fluidRuns } from '../grid/fluid-runs';
 import type { CellField } from './gradient';
 
 export function electrodePower(portPotential: ReadonlyArray<number | null>, portCurrent: ArrayLike<number>): number {
@@ -42,27 +43,47 @@ export function maxPowerPerLength(
   const { nx, ny, apertureX, apertureY } = grid;
   const magnitude = (c: number) => Math.hypot(field.x[c], field.y[c]);
   let best = 0;
+  // Open faces join fluid cells, so the runs of fluid cells hold them all (fluid-runs.ts). Vertical lines are
+  // walked row by row with a run in progress per line, closed when a row does not continue it.
+  const { runs, rowRuns } = fluidRuns(grid);
+  const lineCurrent = new Float64Array(nx + 1), lineWeighted = new Float64Array(nx + 1), lineWeight = new Float64Array(nx + 1);
+  const lastRow = new Int32Array(nx + 1).fill(-2);
+  const closeLine = (i: number) => {
+    if (lineWeight[i] > 0) best = Math.max(best, Math.abs(lineCurrent[i]) * (lineWeighted[i] / lineWeight[i]));
+    lineCurrent[i] = 0; lineWeighted[i] = 0; lineWeight[i] = 0;
+  };
   let current = 0, weighted = 0, weight = 0;
   const close = () => {
     if (weight > 0) best = Math.max(best, Math.abs(current) * (weighted / weight));
     current = 0; weighted = 0; weight = 0;
   };
-  const face = (a: number, lo: number, hi: number) => {
-    if (!(a > 0) || !active[lo] || !active[hi]) {
+  for (let j = 0; j < ny; j++) {
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      const row = j * nx;
+      // Vertical face i between cells c − 1 and c.
+      for (let c = runs[k] + 1; c < runs[k + 1]; c++) {
+        const a = apertureX[c + j], lo = c - 1, i = c - row;
+        if (!(a > 0) || !active[lo] || !active[c]) continue;
+        if (lastRow[i] !== j - 1) closeLine(i);
+        lastRow[i] = j;
+        lineCurrent[i] += a * (potential[lo] - potential[c]);
+        lineWeighted[i] += a * 0.5 * (magnitude(lo) + magnitude(c));
+        lineWeight[i] += a;
+      }
+      // Horizontal faces below the cells of the run, along line j.
+      for (let c = runs[k]; c < runs[k + 1]; c++) {
+        const a = j > 0 ? apertureY[c] : 0, lo = c - nx;
+        if (!(a > 0) || !active[lo] || !active[c]) {
+          close();
+          continue;
+        }
+        current += a * (potential[lo] - potential[c]);
+        weighted += a * 0.5 * (magnitude(lo) + magnitude(c));
+        weight += a;
+      }
       close();
-      return;
     }
-    current += a * (potential[lo] - potential[hi]);
-    weighted += a * 0.5 * (magnitude(lo) + magnitude(hi));
-    weight += a;
-  };
-  for (let i = 1; i < nx; i++) {
-    for (let j = 0; j < ny; j++) face(apertureX[i + j * (nx + 1)], i - 1 + j * nx, i + j * nx);
-    close();
   }
-  for (let j = 1; j < ny; j++) {
-    for (let i = 0; i < nx; i++) face(apertureY[i + j * nx], i + (j - 1) * nx, i + j * nx);
-    close();
-  }
+  for (let i = 0; i <= nx; i++) closeLine(i);
   return sigma * depth * best;
 }
