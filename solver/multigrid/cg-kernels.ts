@@ -1,4 +1,5 @@
 import { prepared, type Operator5 } from './operator';
+import { relaxRow, relaxRowFromZero } from './smooth';
 
 /**
  * The vector work of preconditioned conjugate gradients (pcg.ts) on an Operator5, fused into few passes over
@@ -74,9 +75,36 @@ export function directionAndProduct(op: Operator5, z: Float64Array, beta: number
 }
 
 /** x ← x + α p, r ← r − α q; returns ‖r‖². */
-export function stepAndNorm(runs: Int32Array, alpha: number, p: Float64Array, q: Float64Array, x: Float64Array, r: Float64Array): number {
+export function stepAndNorm(op: Operator5, alpha: number, p: Float64Array, q: Float64Array, x: Float64Array, r: Float64Array): number {
+  const { runs, rowRuns } = prepared(op);
   let rr = 0;
-  for (let k = 0; k < runs.length; k += 2) {
+  for (let j = 0; j < op.n2; j++) rr += stepRow(runs, rowRuns, alpha, p, q, x, r, j);
+  return rr;
+}
+
+/** r = b − A x on the active volumes, with A x formed in `scratch` (so r may be b); returns [‖b‖², ‖r‖²] over them. */
+export function residualAndNorms(op: Operator5, x: Float64Array, b: Float64Array, r: Float64Array, scratch: Float64Array): [number, number] {
+  const { runs, rowRuns } = prepared(op);
+  let bb = 0, rr = 0;
+  for (let j = 0; j < op.n2; j++) {
+    applyRow(op, x, scratch, j);
+    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+      for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+        const bc = b[c];
+        const rc = bc - scratch[c];
+        r[c] = rc;
+        bb += bc * bc;
+        rr += rc * rc;
+      }
+    }
+  }
+  return [bb, rr];
+}
+
+/** x ← x + α p, r ← r − α q on row j; returns Σ r_c² over the row. */
+function stepRow(runs: Int32Array, rowRuns: Int32Array, alpha: number, p: Float64Array, q: Float64Array, x: Float64Array, r: Float64Array, j: number): number {
+  let rr = 0;
+  for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
     for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
       x[c] += alpha * p[c];
       const rc = r[c] - alpha * q[c];
@@ -87,22 +115,36 @@ export function stepAndNorm(runs: Int32Array, alpha: number, p: Float64Array, q:
   return rr;
 }
 
-/** r = b − A x on the active volumes; returns [‖b‖², ‖r‖²] over them. */
-export function residualAndNorms(op: Operator5, x: Float64Array, b: Float64Array, r: Float64Array): [number, number] {
+/**
+ * x ← x + α p and r ← r − α q (returns ‖r‖²) fused with the first sweep of the V-cycle on the new r into z
+ * (smoothRedBlackFromZero): row j + 1 is updated, then the red volumes of row j become r/d, then the black ones
+ * of row j − 1 are relaxed, each finding the rows it reads done. z may be q's array: row j + 1 of q is read
+ * before z is written there.
+ */
+export function stepAndFirstSweep(op: Operator5, alpha: number, p: Float64Array, q: Float64Array, x: Float64Array, r: Float64Array, z: Float64Array): number {
   const { runs, rowRuns } = prepared(op);
-  let bb = 0, rr = 0;
-  for (let j = 0; j < op.n2; j++) {
-    applyRow(op, x, r, j);
-    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
-      for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
-        const rc = b[c] - r[c];
-        r[c] = rc;
-        bb += b[c] * b[c];
-        rr += rc * rc;
-      }
+  const n2 = op.n2;
+  let rr = stepRow(runs, rowRuns, alpha, p, q, x, r, 0);
+  for (let j = 0; j <= n2; j++) {
+    if (j + 1 < n2) rr += stepRow(runs, rowRuns, alpha, p, q, x, r, j + 1);
+    if (j < n2) relaxRowFromZero(op, z, r, j);
+    if (j > 0) relaxRow(op, z, r, j - 1, 1);
+  }
+  return rr;
+}
+
+/** r = b and x = 0 on the runs (r may be b); returns ‖b‖². */
+export function startFromZero(runs: Int32Array, b: Float64Array, r: Float64Array, x: Float64Array): number {
+  let bb = 0;
+  for (let k = 0; k < runs.length; k += 2) {
+    for (let c = runs[k], end = runs[k + 1]; c < end; c++) {
+      const bc = b[c];
+      r[c] = bc;
+      x[c] = 0;
+      bb += bc * bc;
     }
   }
-  return [bb, rr];
+  return bb;
 }
 
 /** Σ a_c b_c over the runs. */

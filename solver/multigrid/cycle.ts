@@ -91,8 +91,17 @@ export function cycleFromZero(h: Hierarchy, b: Float64Array, x: Float64Array, l 
     h.coarsest.solve(b, x);
     return;
   }
+  smoothRedBlackFromZero(h.levels[l], x, b);
+  completeCycle(h, b, x, l, false);
+}
+
+/**
+ * The V-cycle of `cycleFromZero` after its first sweep (which the caller has made, perhaps fused with other
+ * work): the other pre-smoothing sweeps, the coarse correction and post-smoothing. With `dot` it returns bᵀx,
+ * summed row by row during the last sweep (0 otherwise). Level l must not be the coarsest.
+ */
+export function completeCycle(h: Hierarchy, b: Float64Array, x: Float64Array, l: number, dot: boolean): number {
   const op = h.levels[l];
-  smoothRedBlackFromZero(op, x, b);
   for (let s = 1; s < h.sweeps; s++) smoothRedBlack(op, x, b, 0);
   const coarse = h.levels[l + 1];
   const bc = h.b[l + 1];
@@ -100,5 +109,6 @@ export function cycleFromZero(h: Hierarchy, b: Float64Array, x: Float64Array, l 
   restrictResidual(op, x, b, coarse, bc);
   cycleFromZero(h, bc, xc, l + 1);
   prolongCorrection(op, x, coarse, xc);
-  for (let s = 0; s < h.sweeps; s++) smoothRedBlack(op, x, b, 1);
+  for (let s = 1; s < h.sweeps; s++) smoothRedBlack(op, x, b, 1);
+  return smoothRedBlack(op, x, b, 1, dot);
 }

@@ -3,27 +3,34 @@ export { coarsen, prolongAdd, prolongCorrection, restrict, restrictResidual } fr
 export { buildHierarchy, cycleFromZero, vcycle, type Coarsening, type Hierarchy } from './cycle';
 export { coarsenWithExtents, unitExtents, type Extents } from './coarsen-extents';
 export { pcg, pcgWorkspace, dot, type KrylovResult, type PcgOptions, type PcgWorkspace } from './pcg';
+export { multigridCg, type MultigridCgOptions, type MultigridCgWork } from './multigrid-cg';
 export { smoothRedBlack, smoothRedBlackFromZero } from './smooth';
 
-import { buildHierarchy, cycleFromZero, type Hierarchy } from './cycle';
+import { buildHierarchy, type Hierarchy } from './cycle';
+import { multigridCg, type MultigridCgOptions, type MultigridCgWork } from './multigrid-cg';
 import type { Operator5 } from './operator';
-import { pcg, pcgWorkspace, type KrylovResult, type PcgOptions } from './pcg';
+import type { KrylovResult } from './pcg';
 
 /** A multigrid-preconditioned conjugate-gradient solver for one operator, reusable for many right-hand sides. */
 export interface MultigridPcg {
   hierarchy: Hierarchy;
-  solve(b: Float64Array, x: Float64Array, options?: Omit<PcgOptions, 'precondition'>): KrylovResult;
+  solve(b: Float64Array, x: Float64Array, options?: MultigridCgOptions): KrylovResult;
 }
 
 /**
- * Builds the hierarchy of `op` and the conjugate-gradient work vectors once (`sweeps` red–black sweeps before and
- * after each coarse correction). pcg keeps its vectors 0 off the active volumes, so the cycle need not clear them.
+ * Builds the hierarchy of `op` once (`sweeps` red–black sweeps before and after each coarse correction); the
+ * conjugate-gradient work vectors are allocated at the first solve and kept for the next (multigrid-cg.ts).
  */
 export function multigridPcg(op: Operator5, options: { sweeps?: number } = {}): MultigridPcg {
   const hierarchy = buildHierarchy(op, options.sweeps ?? 2);
-  const workspace = pcgWorkspace(op);
-  const precondition = (r: Float64Array, z: Float64Array) => cycleFromZero(hierarchy, r, z);
-  return { hierarchy, solve: (b, x, opts = {}) => pcg(op, b, x, { ...opts, precondition, workspace }) };
+  const n = op.n1 * op.n2;
+  let work: MultigridCgWork | null = null;
+  const solve = (b: Float64Array, x: Float64Array, opts: MultigridCgOptions = {}) => {
+    work ??= { p: new Float64Array(n), q: new Float64Array(n) };
+    if (!opts.overwriteRightHandSide) work.r ??= new Float64Array(n);
+    return multigridCg(hierarchy, b, x, work, opts);
+  };
+  return { hierarchy, solve };
 }
 
 /** Solves A x = b by conjugate gradients preconditioned with one multigrid V-cycle. */
@@ -31,7 +38,7 @@ export function solveMultigridPcg(
   op: Operator5,
   b: Float64Array,
   x: Float64Array,
-  options: Omit<PcgOptions, 'precondition'> & { sweeps?: number } = {},
+  options: MultigridCgOptions & { sweeps?: number } = {},
 ): KrylovResult & { levels: number } {
   const solver = multigridPcg(op, { sweeps: options.sweeps });
   const { sweeps: _sweeps, ...pcgOptions } = options;

@@ -61,8 +61,12 @@ export function createOperator(n1: number, n2: number, options: { reaction?: boo
  * faces between two inactive volumes are left as they are (nothing reads them). Values that do not change are
  * not written again (the face arrays may be the grid's own).
  */
-export function finishOperator(op: Operator5): Operator5 {
-  findRuns(op);
+export function finishOperator(op: Operator5, runs?: { runs: Int32Array; rowRuns: Int32Array }): Operator5 {
+  // The runs of `active` when the caller has them already (they are read, never written), else found here.
+  if (runs) {
+    op.runs = runs.runs;
+    op.rowRuns = runs.rowRuns;
+  } else findRuns(op);
   if (!closeAndSum(op)) {
     // Some volume had no conductance at all and was dropped: the runs and stretches are out of date.
     findRuns(op);
@@ -94,6 +98,7 @@ function closeAndSum(op: Operator5): boolean {
       if (gx[first + j] !== 0) gx[first + j] = 0;
       if (gx[end + j] !== 0) gx[end + j] = 0;
       stretches.run(first);
+      let streak = 0; // conductance of the current streak of volumes (stretches.ts)
       for (let c = first; c < end; c++) {
         const f = c + j; // face left of c in gx
         let so = gy[c], no = gy[c + n1];
@@ -108,7 +113,8 @@ function closeAndSum(op: Operator5): boolean {
           diag[c] = 0;
           dropped = true;
         }
-        stretches.volume(c, below && above && w > 0 && w === e && w === so && w === no && d === 4 * w ? w : 0);
+        const g = below && above && w > 0 && w === e && w === so && w === no && d === 4 * w ? w : 0;
+        if (g !== streak) stretches.change(c, (streak = g));
       }
       stretches.end(end);
     }

@@ -53,7 +53,7 @@ export function pcg(op: Operator5, b: Float64Array, x: Float64Array, options: Pc
   const runs = activeRuns(op);
   const { r, p, q } = options.workspace ?? pcgWorkspace(op);
   zeroInactive(op, x);
-  const [bb, rr0] = residualAndNorms(op, x, b, r);
+  const [bb, rr0] = residualAndNorms(op, x, b, r, q);
   const bnorm = sqrt(bb);
   const history: number[] = [];
   if (bnorm === 0) {
@@ -69,7 +69,7 @@ export function pcg(op: Operator5, b: Float64Array, x: Float64Array, options: Pc
   while (it < maxIt) {
     it++;
     const alpha = rz / directionAndProduct(op, q, beta, p, q);
-    const rel = sqrt(stepAndNorm(runs, alpha, p, q, x, r)) / bnorm;
+    const rel = sqrt(stepAndNorm(op, alpha, p, q, x, r)) / bnorm;
     history.push(rel);
     if (rel <= tol) break;
     if (options.onIteration?.(it, rel) === false) break;

@@ -66,7 +66,7 @@ function relaxOnEdge(
 }
 
 /** x_c = b_c / d_c for the volumes of colour 0 in row j: their relaxation when every x is 0. */
-function relaxRowFromZero(op: Operator5, x: Float64Array, b: Float64Array, j: number): void {
+export function relaxRowFromZero(op: Operator5, x: Float64Array, b: Float64Array, j: number): void {
   const { diag } = op;
   const { bounds, rowStart, conductance } = op.stretches!;
   const shift = j * op.n1 - j;
@@ -88,15 +88,29 @@ function relaxRowFromZero(op: Operator5, x: Float64Array, b: Float64Array, j: nu
  * conjugate gradients needs of its preconditioner. Only the runs of active volumes are visited, and the
  * two colours in one pass: the second colour follows one row behind the first, which has then been
  * relaxed in every row the second reads (the same result as two passes, with the rows still in cache).
- * x must be finite off the active volumes.
+ * x must be finite off the active volumes. With `dot`, returns bᵀx after the sweep, each row summed as soon as
+ * both its colours are done (0 otherwise).
  */
-export function smoothRedBlack(op: Operator5, x: Float64Array, b: Float64Array, first: 0 | 1): void {
+export function smoothRedBlack(op: Operator5, x: Float64Array, b: Float64Array, first: 0 | 1, dot = false): number {
   prepared(op);
   const n2 = op.n2, second = 1 - first;
+  let bx = 0;
   for (let j = 0; j <= n2; j++) {
     if (j < n2) relaxRow(op, x, b, j, first);
-    if (j > 0) relaxRow(op, x, b, j - 1, second);
+    if (j > 0) {
+      relaxRow(op, x, b, j - 1, second);
+      if (dot) bx += dotRow(op, b, x, j - 1);
+    }
   }
+  return bx;
+}
+
+/** Σ a_c b_c over the active volumes of row j. */
+export function dotRow(op: Operator5, a: Float64Array, b: Float64Array, j: number): number {
+  const runs = op.runs!, rowRuns = op.rowRuns!;
+  let s = 0;
+  for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) for (let c = runs[k], end = runs[k + 1]; c < end; c++) s += a[c] * b[c];
+  return s;
 }
 
 /**

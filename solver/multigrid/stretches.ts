@@ -22,16 +22,18 @@ export interface Stretches {
 const MIN_UNIFORM = 4;
 
 /**
- * Builds the stretches while the volumes of each run are visited in order: volume(c, g) with g > 0 for a uniform
- * volume of conductance g, 0 for a general one. Uniform streaks shorter than MIN_UNIFORM stay general.
+ * Builds the stretches while the volumes of each run are visited in order. The caller keeps the conductance of
+ * the current streak (`g`, 0 for general volumes) and calls change(c, g) where volume c starts a streak with
+ * another one; uniform streaks shorter than MIN_UNIFORM stay general.
  */
 export class StretchList {
+  /** Conductance of the current streak. */
+  g = 0;
   private bounds: number[] = [];
   private conductance: number[] = [];
   private rowStart: Int32Array;
   private general = 0; // start of the general stretch being gathered
-  private streak = 0; // start of the current streak of equal g
-  private g = 0;
+  private streak = 0; // start of the current streak
 
   constructor(private n2: number) {
     this.rowStart = new Int32Array(n2 + 1);
@@ -46,8 +48,7 @@ export class StretchList {
     this.g = 0;
   }
 
-  volume(c: number, g: number): void {
-    if (g === this.g) return;
+  change(c: number, g: number): void {
     this.closeStreak(c);
     this.streak = c;
     this.g = g;
@@ -88,9 +89,11 @@ export function findStretches(op: Operator5): Stretches {
     for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
       const first = runs[k], end = runs[k + 1];
       list.run(first);
+      let streak = 0;
       for (let c = first; c < end; c++) {
         const w = gx[c + j];
-        list.volume(c, inside && w > 0 && gx[c + j + 1] === w && gy[c] === w && gy[c + n1] === w && diag[c] === 4 * w ? w : 0);
+        const g = inside && w > 0 && gx[c + j + 1] === w && gy[c] === w && gy[c + n1] === w && diag[c] === 4 * w ? w : 0;
+        if (g !== streak) list.change(c, (streak = g));
       }
       list.end(end);
     }

@@ -16,15 +16,21 @@ import { finishOperator, type Operator5 } from '../multigrid/operator';
  * The operator over the `active` cells. When every fluid cell is active its face arrays ARE the grid's
  * aperture arrays (finishOperator then writes nothing into them: apertures next to solid cells and on the
  * border are 0 already), which saves 16 bytes a cell; otherwise they are copies, as finishOperator closes the
- * faces next to the excluded cells. Nothing writes to an operator's faces after that. `everyFluidCell`, when
- * the caller knows it (ElectrodePieces.everyFluidCell), spares the pass that finds out. No reaction term.
+ * faces next to the excluded cells. Nothing writes to an operator's faces after that. What the caller knows of
+ * `active` (ElectrodePieces: whether it is every fluid cell, its runs) spares the passes that find out.
+ * No reaction term.
  */
-export function laplaceOperator(grid: CutCellGrid, active: Uint8Array, conductance: Float64Array, everyFluidCell?: boolean): Operator5 {
+export function laplaceOperator(
+  grid: CutCellGrid,
+  active: Uint8Array,
+  conductance: Float64Array,
+  known: { everyFluidCell?: boolean; runs?: Int32Array; rowRuns?: Int32Array } = {},
+): Operator5 {
   const n = grid.nx * grid.ny;
   const boundary = new Float64Array(n);
   const seg = grid.segments;
   for (let s = 0; s < seg.count; s++) if (seg.port[s] >= 0) boundary[seg.cell[s]] += conductance[s];
-  const shared = everyFluidCell ?? everyFluidCellActive(grid, active);
+  const shared = known.everyFluidCell ?? everyFluidCellActive(grid, active);
   const op: Operator5 = {
     n1: grid.nx,
     n2: grid.ny,
@@ -35,7 +41,7 @@ export function laplaceOperator(grid: CutCellGrid, active: Uint8Array, conductan
     active: active.slice(),
     diag: new Float64Array(n),
   };
-  return finishOperator(op);
+  return finishOperator(op, known.runs && known.rowRuns ? { runs: known.runs, rowRuns: known.rowRuns } : undefined);
 }
 
 function everyFluidCellActive(grid: CutCellGrid, active: Uint8Array): boolean {

@@ -15,6 +15,9 @@ export interface ElectrodePieces {
   active: Uint8Array;
   /** Whether that is every fluid cell (no piece is left out). */
   everyFluidCell: boolean;
+  /** Runs of active cells, row by row, and the index of each row's first run (as Operator5.runs and rowRuns). */
+  runs: Int32Array;
+  rowRuns: Int32Array;
   /** Per port: whether it lies in a piece with an electrode (false also for ports on no fluid). */
   portReferenced: boolean[];
   /** Number of fluid pieces without an electrode that touch a port. */
@@ -35,16 +38,30 @@ export function electrodePieces(grid: CutCellGrid, components: FluidComponents, 
     touched[piece] = 1;
     if (ports[k].potential !== null) hasElectrode[piece] = 1;
   }
-  const n = grid.nx * grid.ny;
-  const { fraction } = grid;
-  const active = new Uint8Array(n);
+  const { nx, ny, fraction } = grid;
+  const active = new Uint8Array(nx * ny);
+  const runs: number[] = [];
+  const rowRuns = new Int32Array(ny + 1);
   let everyFluidCell = true;
-  for (let c = 0; c < n; c++) {
-    const piece = label[c]; // ≥ 0 on fluid cells only (components.ts)
-    if (piece < 0) continue;
-    if (hasElectrode[piece] !== 0 && fraction[c] > 0) active[c] = 1;
-    else everyFluidCell = false;
+  for (let j = 0; j < ny; j++) {
+    rowRuns[j] = runs.length;
+    const rowEnd = (j + 1) * nx;
+    let inRun = false;
+    for (let c = j * nx; c < rowEnd; c++) {
+      const piece = label[c]; // ≥ 0 on fluid cells only (components.ts)
+      if (piece >= 0 && hasElectrode[piece] !== 0 && fraction[c] > 0) {
+        active[c] = 1;
+        if (!inRun) runs.push(c);
+        inRun = true;
+      } else {
+        if (piece >= 0) everyFluidCell = false;
+        if (inRun) runs.push(c);
+        inRun = false;
+      }
+    }
+    if (inRun) runs.push(rowEnd);
   }
+  rowRuns[ny] = runs.length;
   const portReferenced = ports.map(() => false);
   for (let s = 0; s < seg.count; s++) {
     const k = seg.port[s];
@@ -53,5 +70,5 @@ export function electrodePieces(grid: CutCellGrid, components: FluidComponents, 
   }
   const floatingSeeds: number[] = [];
   for (let p = 0; p < components.count; p++) if (touched[p] && !hasElectrode[p]) floatingSeeds.push(components.seed[p]);
-  return { active, everyFluidCell, portReferenced, floatingPieces: floatingSeeds.length, floatingSeeds };
+  return { active, everyFluidCell, runs: Int32Array.from(runs), rowRuns, portReferenced, floatingPieces: floatingSeeds.length, floatingSeeds };
 }

@@ -73,19 +73,22 @@ export function solvePotential(
   const pieces = electrodePieces(grid, components, ports);
   const { active } = pieces;
   const conductance = portConductances(grid);
-  const op = laplaceOperator(grid, active, conductance, pieces.everyFluidCell);
+  const op = laplaceOperator(grid, active, conductance, pieces);
   const mg = multigridPcg(op, { sweeps: options.sweeps });
   const floating = ports.map((p, k) => (p.potential === null && pieces.portReferenced[k] ? k : -1)).filter((k) => k >= 0);
   const totalSolves = floating.length === 0 ? 1 : floating.length + 2;
 
   const stats = { iterations: 0, maxIterations: 0, solves: 0, residual: 0, converged: true };
   const b = new Float64Array(n);
-  const x = new Float64Array(n);
+  // NaN where φ is not solved for: the solves write the active cells only (zeroGuess).
+  const x = new Float64Array(n).fill(NaN);
   const run = (values: ArrayLike<number>) => {
     portRightHandSide(grid, active, conductance, values, b);
-    x.fill(0);
     let stopped = false;
+    // b is filled again for every solve, so the solver may keep its residual there.
     const result = mg.solve(b, x, {
+      zeroGuess: true,
+      overwriteRightHandSide: true,
       tolerance: options.tolerance ?? 1e-8,
       maxIterations: options.maxIterations,
       onIteration: () => {
@@ -130,15 +133,7 @@ export function solvePotential(
     run(values);
   }
 
-  // NaN off the runs of active cells (the operator's: a cell without any conductance would have been dropped).
   const potential = x;
-  const runs = op.runs!;
-  let from = 0;
-  for (let k = 0; k < runs.length; k += 2) {
-    potential.fill(NaN, from, runs[k]);
-    from = runs[k + 1];
-  }
-  potential.fill(NaN, from, n);
   const portCurrent = portFluxes(grid, active, conductance, values, potential, new Float64Array(ports.length));
   for (let k = 0; k < ports.length; k++) portCurrent[k] *= sigmaDepth;
   const portPotential = ports.map((p, k) => (pieces.portReferenced[k] ? values[k] : p.potential));
