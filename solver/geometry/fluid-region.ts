@@ -45,16 +45,17 @@ export function regionFromMultiPolygon(multi: MultiPolygon): FluidRegion {
 }
 
 /**
- * Builds the fluid region from the design's shapes. Throws if the clipping
- * library gives up on a degenerate configuration (callers report it).
+ * Builds the fluid region from the design's shapes, arcs to `tolerance` (relative to their radius; one value, or
+ * one per shape). Throws if the clipping library gives up on a degenerate configuration (callers report it).
  */
-export function fluidRegion(shapes: ReadonlyArray<Shape>, tolerance = ARC_TOLERANCE): FluidRegion {
+export function fluidRegion(shapes: ReadonlyArray<Shape>, tolerance: number | ((shape: Shape) => number) = ARC_TOLERANCE): FluidRegion {
+  const toleranceOf = typeof tolerance === 'number' ? () => tolerance : tolerance;
   let fluid: MultiPolygon = [];
   let k = 0;
   while (k < shapes.length) {
     const op = shapes[k].op;
     const run: ClipPolygon[] = [];
-    while (k < shapes.length && shapes[k].op === op) run.push(closed(shapeOutline(shapes[k++], tolerance)));
+    while (k < shapes.length && shapes[k].op === op) run.push(closed(shapeOutline(shapes[k], toleranceOf(shapes[k++]))));
     if (op === 'add') {
       fluid = fluid.length > 0 ? clipping.union(fluid, ...run) : clipping.union(run[0], ...run.slice(1));
     } else if (fluid.length > 0) {

@@ -110,3 +110,15 @@ export function shapeFeatureSize(shape: Region): number {
     }
   }
 }
+
+/** The largest arc radius of a shape (m); 0 for shapes with straight edges only. */
+export function shapeArcRadius(shape: Region): number {
+  switch (shape.type) {
+    case 'circle':
+      return shape.radius;
+    case 'sector':
+      return shape.outerRadius;
+    default:
+      return 0;
+  }
+}

@@ -8,13 +8,13 @@
  * shapes that nearly touch) are removed from the grid with a warning, so
  * every piece the solvers see touches a port once there are no errors.
  */
-import type { DesignDocument, DesignProblem } from '../../shared/design';
-import { ARC_TOLERANCE } from '../geometry/arc';
+import type { DesignDocument, DesignProblem, Shape } from '../../shared/design';
+import { ARC_TOLERANCE, COARSE_ARC_TOLERANCE, gridArcTolerance } from '../geometry/arc';
 import { channelWidths, type ChannelWidths } from '../geometry/channel-width';
 import { checkGrid, checkRegion, checkShapes } from '../geometry/checks';
 import { fluidRegion, type FluidRegion } from '../geometry/fluid-region';
 import { formatPoint } from '../geometry/format';
-import { shapeFeatureSize } from '../geometry/shape-outline';
+import { shapeArcRadius, shapeFeatureSize } from '../geometry/shape-outline';
 import { chooseGrid, type GridChoice } from './choose-grid';
 import { labelComponents, type FluidComponents } from './components';
 import { allocateSegments, type CutCellGrid } from './cut-cell-grid';
@@ -24,6 +24,7 @@ export interface DiscretiseOptions {
   /** Cells along the longer side of the layout (--cells). */
   cells?: number;
   maxCells?: number;
+  /** Arc tolerance relative to the radius for every arc; default: as fine as the grid needs (gridRegion). */
   arcTolerance?: number;
 }
 
@@ -48,8 +49,10 @@ export function discretiseDesign(design: DesignDocument, options: DiscretiseOpti
   const result: Discretisation = { ok: false, problems, region: null, widths: null, choice: null, grid: null, components: null };
   if (problems.some((p) => p.code === 'empty-layout' || p.code === 'self-crossing-polygon')) return result;
 
+  const features = design.shapes.filter((s) => s.op === 'add').map(shapeFeatureSize);
+  const sliverWidth = SLIVER_RATIO * Math.min(...features);
   try {
-    result.region = fluidRegion(design.shapes, options.arcTolerance ?? ARC_TOLERANCE);
+    result.region = gridRegion(design, options, sliverWidth);
   } catch (error) {
     problems.push({
       code: 'geometry-failed',
@@ -61,8 +64,6 @@ export function discretiseDesign(design: DesignDocument, options: DiscretiseOpti
     return result;
   }
   const region = result.region;
-  const features = design.shapes.filter((s) => s.op === 'add').map(shapeFeatureSize);
-  const sliverWidth = SLIVER_RATIO * Math.min(...features);
   if (region.area > 0) result.widths = channelWidths(region, sliverWidth);
   problems.push(...checkRegion(region, result.widths, sliverWidth));
   if (!(region.area > 0)) return result;
@@ -100,6 +101,26 @@ export function discretiseDesign(design: DesignDocument, options: DiscretiseOpti
   );
   result.ok = !problems.some((p) => p.severity === 'error');
   return result;
+}
+
+/**
+ * The fluid region the grid is built from. Arcs are made as fine as the grid needs (gridArcTolerance in
+ * geometry/arc.ts): a first outline with coarse arcs gives the grid spacing (from its narrowest channel, or
+ * from `cells`), then each arc's polygon keeps within a small fraction of that spacing of its circle. Without
+ * arcs, or with an explicit tolerance, one outline.
+ */
+function gridRegion(design: DesignDocument, options: DiscretiseOptions, sliverWidth: number): FluidRegion {
+  const { shapes } = design;
+  if (options.arcTolerance !== undefined || !shapes.some((s) => shapeArcRadius(s) > 0)) {
+    return fluidRegion(shapes, options.arcTolerance ?? ARC_TOLERANCE);
+  }
+  const coarse = fluidRegion(shapes, COARSE_ARC_TOLERANCE);
+  if (!(coarse.area > 0)) return coarse;
+  const narrowest = channelWidths(coarse, sliverWidth).narrowest;
+  const h = chooseGrid(coarse, { cells: options.cells, maxCells: options.maxCells, narrowest }).spacing;
+  const tolerance = (shape: Shape) => gridArcTolerance(shapeArcRadius(shape), h);
+  if (shapes.every((s) => shapeArcRadius(s) === 0 || tolerance(s) >= COARSE_ARC_TOLERANCE)) return coarse;
+  return fluidRegion(shapes, tolerance);
 }
 
 function tinyLoosePieces(grid: CutCellGrid, components: FluidComponents): number[] {
