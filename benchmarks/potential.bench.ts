@@ -3,7 +3,8 @@
  * 256, 512, 1024 and 2048 cells along its long side. For each grid:
  *   - the multigrid-preconditioned CG solve of solvePotential to a relative residual of 1e-8:
  *     iterations, seconds, peak memory;
- *   - a streaming pass over the operator's arrays (the work unit, WU) and the solve in WU;
+ *   - a streaming pass over the operator's arrays (the work unit, WU) and the solve in WU, with the share of
+ *     its set-up (electrode pieces, operator, multigrid hierarchy) timed on its own;
  *   - SOR with Young's optimal ω (from the Jacobi spectral radius) on the same operator and
  *     right-hand side, capped in time and extrapolated from its observed rate when capped.
  * Times are CPU seconds of this single-threaded process (process.cpuUsage): the machine is shared,
@@ -60,14 +61,14 @@ function solverBytes(grid: CutCellGrid, active: Uint8Array): number {
   for (const arrays of [mg.hierarchy.b, mg.hierarchy.x]) for (const a of arrays) bytes += a.byteLength;
   const c = mg.hierarchy.coarsest;
   bytes += c.unknowns * (c.bandwidth + 2) * 8;
-  bytes += 5 * n * 8; // b, x (the solution) and CG's r, p, q (q also holds z)
+  bytes += 4 * n * 8; // b (then the residual), x (the solution) and CG's p and q (q also holds z)
   bytes += n * 4; // the component labels the pieces are read from (kept by the discretisation)
   return bytes;
 }
 
 interface Row {
   cells: number; nx: number; ny: number; fluid: number; discretiseS: number;
-  iterations: number; levels: number; seconds: number; wu: number; wuSeconds: number; wuGrid: number; gridPassSeconds: number;
+  iterations: number; levels: number; seconds: number; setupSeconds: number; wu: number; wuSeconds: number; wuGrid: number; gridPassSeconds: number;
   countedBytes: number; measuredBytes: number; gridBytes: number;
   rhoJ: number; omega: number; sor: ReturnType<typeof runSor>;
 }
@@ -92,6 +93,15 @@ function measure(cells: number): Row {
     runs++;
   }
   const seconds = (cpuSeconds() - t) / runs;
+  // The set-up alone, as solvePotential makes it.
+  let setups = 0;
+  t = cpuSeconds();
+  while (setups < 3 || (cpuSeconds() - t < 0.5 && setups < 100)) {
+    const pieces = electrodePieces(grid, components, design.ports);
+    multigridPcg(laplaceOperator(grid, pieces.active, portConductances(grid), pieces));
+    setups++;
+  }
+  const setupSeconds = (cpuSeconds() - t) / setups;
   // Memory: ArrayBuffer growth while solving, sampled every iteration.
   gc();
   const base = process.memoryUsage().arrayBuffers;
@@ -113,7 +123,7 @@ function measure(cells: number): Row {
   const omega = optimalOmega(rhoJ);
   const sor = runSor(op, b, omega, TOLERANCE, SOR_SECONDS);
   return {
-    cells, nx: grid.nx, ny: grid.ny, fluid: grid.fluidCells, discretiseS, iterations, levels, seconds,
+    cells, nx: grid.nx, ny: grid.ny, fluid: grid.fluidCells, discretiseS, iterations, levels, seconds, setupSeconds,
     wu: seconds / wuSeconds, wuSeconds, wuGrid: seconds / gridPassSeconds, gridPassSeconds, countedBytes, measuredBytes, gridBytes: gridBytes(grid), rhoJ, omega, sor,
   };
 }
@@ -123,14 +133,19 @@ function pad(s: string | number, w: number): string {
 }
 
 const rows: Row[] = [];
-console.log(`Serpentine potential benchmark (relative residual ${TOLERANCE}); SOR capped at ${SOR_SECONDS} s per grid.\n`);
+console.log(
+  `Serpentine potential benchmark (relative residual ${TOLERANCE}); SOR capped at ${SOR_SECONDS} s per grid.\n` +
+    'Work unit (WU): the CPU time of one streaming pass over the whole nx·ny box reading the six arrays a relaxation\n' +
+    'sweep reads (gx, gy, diag, active, x, b) and writing one, measured in this process on each grid.\n',
+);
 for (const cells of SIZES) {
   const row = measure(cells);
   rows.push(row);
   const s = row.sor;
   console.log(
     `${cells}: ${row.nx}×${row.ny} grid, ${row.fluid} fluid cells, discretised in ${row.discretiseS.toFixed(2)} s; ` +
-      `MG-PCG ${row.iterations} iterations (${row.levels} levels) in ${row.seconds.toFixed(3)} s = ${row.wu.toFixed(1)} WU ` +
+      `MG-PCG ${row.iterations} iterations (${row.levels} levels) in ${row.seconds.toFixed(3)} s = ${row.wu.toFixed(1)} WU, ` +
+      `of which set-up ${(row.setupSeconds / row.wuSeconds).toFixed(1)} WU ` +
       `(1 WU = ${(row.wuSeconds * 1e3).toFixed(2)} ms; ${row.wuGrid.toFixed(1)} passes over the grid's three arrays of ${(row.gridPassSeconds * 1e3).toFixed(2)} ms); ρ_J = 1 − ${(1 - row.rhoJ).toExponential(3)}, ω = ${row.omega.toFixed(5)}; ` +
       `SOR ${s.sweeps} sweeps in ${s.seconds.toFixed(1)} s to ${s.residual.toExponential(1)}` +
       (s.converged ? ' (converged)' : `, rate ${s.observedRate.toFixed(6)}/sweep (ω − 1 = ${(row.omega - 1).toFixed(6)}) → ${Math.round(s.sweepsNeeded)} sweeps, ${s.secondsNeeded.toFixed(0)} s extrapolated`),
@@ -149,8 +164,9 @@ for (const r of rows) {
 }
 console.log(
   '\n* SOR stopped at the time cap; sweeps and seconds extrapolated to 1e-8 from the residual rate over the last quarter of its run.\n' +
-    'WU: CPU seconds of the solve (assembly, hierarchy and CG) over those of one streaming pass over the arrays a sweep reads\n' +
-    '(gx, gy, diag, active, x, b; one write); "grid passes": the same over one pass reading fraction, apertureX and apertureY.\n' +
+    'WU: CPU seconds of the whole solve (electrode pieces, assembly, hierarchy, CG, port currents) over those of one\n' +
+    'streaming pass over the box reading the arrays a sweep reads (gx, gy, diag, active, x, b; one write); "grid passes":\n' +
+    'the same over one pass reading fraction, apertureX and apertureY.\n' +
     'B/cell: bytes per grid cell (nx·ny) at peak, the grid\'s own arrays included; "counted" sums the typed arrays the solve\n' +
     'allocates, "measured" is the growth of process.memoryUsage().arrayBuffers during the solve (garbage not yet collected included).\n' +
     'Goals (issue 3): iterations ≤ 15 and flat; 1024 cells in ≤ 60 WU and ≥ 30× faster than SOR; ≤ 200 bytes per cell.',

@@ -73,37 +73,45 @@ export function prolongAdd(fine: Operator5, x: Float64Array, coarse: Operator5, 
  * Equal to `residual` then `restrict` up to the rounding of the colour-1 zeros. x must be finite everywhere.
  */
 export function restrictResidual(fine: Operator5, x: Float64Array, b: Float64Array, coarse: Operator5, rc: Float64Array): void {
-  const cruns = activeRuns(coarse);
-  for (let k = 0; k < cruns.length; k += 2) rc.fill(0, cruns[k], cruns[k + 1]);
-  const { stretches: { bounds, rowStart, conductance } } = prepared(fine);
+  clearOnRuns(coarse, rc);
+  prepared(fine);
+  for (let j = 0; j < fine.n2; j++) restrictRow(fine, x, b, coarse.n1, rc, j);
+}
+
+/** v = 0 on the runs of op's active volumes (the only entries the V-cycle reads). */
+export function clearOnRuns(op: Operator5, v: Float64Array): void {
+  const runs = activeRuns(op);
+  for (let k = 0; k < runs.length; k += 2) v.fill(0, runs[k], runs[k + 1]);
+}
+
+/** restrictResidual for the colour-0 volumes of row j, added to rc (cn1: the coarse row length). */
+export function restrictRow(fine: Operator5, x: Float64Array, b: Float64Array, cn1: number, rc: Float64Array, j: number): void {
   const { n1, n2, gx, gy, diag } = fine;
-  const cn1 = coarse.n1;
-  for (let j = 0; j < n2; j++) {
-    const row = j * n1, parents = (j >> 1) * cn1; // the parent of c is parents + ((c − row) >> 1)
-    const shift = row - j; // (c − shift) & 1 is 0 on colour 0
-    const inside = j > 0 && j < n2 - 1;
-    for (let t = rowStart[j], last = rowStart[j + 1]; t < last; t++) {
-      const first = bounds[2 * t], end = bounds[2 * t + 1];
-      const start = first + ((first - shift) & 1);
-      const g = conductance[t];
-      if (g > 0) {
-        for (let c = start; c < end; c += 2) rc[parents + ((c - row) >> 1)] += b[c] + g * (x[c - 1] + x[c + 1] + x[c - n1] + x[c + n1] - 4 * x[c]);
-      } else if (inside) {
-        for (let c = start; c < end; c += 2) {
-          const f = c + j;
-          rc[parents + ((c - row) >> 1)] += b[c] - diag[c] * x[c] + gx[f] * x[c - 1] + gx[f + 1] * x[c + 1] + gy[c] * x[c - n1] + gy[c + n1] * x[c + n1];
-        }
-      } else {
-        for (let c = start; c < end; c += 2) {
-          const f = c + j;
-          let s = b[c] - diag[c] * x[c];
-          const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
-          if (w !== 0) s += w * x[c - 1];
-          if (e !== 0) s += e * x[c + 1];
-          if (so !== 0) s += so * x[c - n1];
-          if (no !== 0) s += no * x[c + n1];
-          rc[parents + ((c - row) >> 1)] += s;
-        }
+  const { bounds, rowStart, conductance } = fine.stretches!;
+  const row = j * n1, parents = (j >> 1) * cn1; // the parent of c is parents + ((c − row) >> 1)
+  const shift = row - j; // (c − shift) & 1 is 0 on colour 0
+  const inside = j > 0 && j < n2 - 1;
+  for (let t = rowStart[j], last = rowStart[j + 1]; t < last; t++) {
+    const first = bounds[2 * t], end = bounds[2 * t + 1];
+    const start = first + ((first - shift) & 1);
+    const g = conductance[t];
+    if (g > 0) {
+      for (let c = start; c < end; c += 2) rc[parents + ((c - row) >> 1)] += b[c] + g * (x[c - 1] + x[c + 1] + x[c - n1] + x[c + n1] - 4 * x[c]);
+    } else if (inside) {
+      for (let c = start; c < end; c += 2) {
+        const f = c + j;
+        rc[parents + ((c - row) >> 1)] += b[c] - diag[c] * x[c] + gx[f] * x[c - 1] + gx[f + 1] * x[c + 1] + gy[c] * x[c - n1] + gy[c + n1] * x[c + n1];
+      }
+    } else {
+      for (let c = start; c < end; c += 2) {
+        const f = c + j;
+        let s = b[c] - diag[c] * x[c];
+        const w = gx[f], e = gx[f + 1], so = gy[c], no = gy[c + n1];
+        if (w !== 0) s += w * x[c - 1];
+        if (e !== 0) s += e * x[c + 1];
+        if (so !== 0) s += so * x[c - n1];
+        if (no !== 0) s += no * x[c + n1];
+        rc[parents + ((c - row) >> 1)] += s;
       }
     }
   }
@@ -114,15 +122,17 @@ export function restrictResidual(fine: Operator5, x: Float64Array, b: Float64Arr
  * value without reading it, so only colour-0 volumes receive x_coarse of their parent (`prolongAdd` otherwise).
  */
 export function prolongCorrection(fine: Operator5, x: Float64Array, coarse: Operator5, xc: Float64Array): void {
-  const { runs, rowRuns } = prepared(fine);
-  const { n1, n2 } = fine;
-  const cn1 = coarse.n1;
-  for (let j = 0; j < n2; j++) {
-    const row = j * n1, parents = (j >> 1) * cn1;
-    const shift = row - j;
-    for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
-      const end = runs[k + 1];
-      for (let c = runs[k] + ((runs[k] - shift) & 1); c < end; c += 2) x[c] += xc[parents + ((c - row) >> 1)];
-    }
+  prepared(fine);
+  for (let j = 0; j < fine.n2; j++) prolongRow(fine, x, coarse.n1, xc, j);
+}
+
+/** prolongCorrection for row j (cn1: the coarse row length). */
+export function prolongRow(fine: Operator5, x: Float64Array, cn1: number, xc: Float64Array, j: number): void {
+  const runs = fine.runs!, rowRuns = fine.rowRuns!;
+  const row = j * fine.n1, parents = (j >> 1) * cn1;
+  const shift = row - j;
+  for (let k = rowRuns[j], last = rowRuns[j + 1]; k < last; k += 2) {
+    const end = runs[k + 1];
+    for (let c = runs[k] + ((runs[k] - shift) & 1); c < end; c += 2) x[c] += xc[parents + ((c - row) >> 1)];
   }
 }

@@ -1,8 +1,8 @@
-import { coarsen, prolongCorrection, restrictResidual } from './coarsen';
+import { coarsen, restrictResidual } from './coarsen';
 import { coarsenWithExtents, unitExtents } from './coarsen-extents';
 import { bandedCost, coarsestSolver, type CoarsestSolver } from './banded';
 import { activeRuns, zeroInactive, type Operator5 } from './operator';
-import { smoothRedBlack, smoothRedBlackFromZero } from './smooth';
+import { prolongAndSmooth, smoothAndRestrict, smoothRedBlack, smoothRedBlackFromZero } from './smooth';
 
 /** Levels of a geometric multigrid hierarchy, finest first, with their work arrays. */
 export interface Hierarchy {
@@ -102,13 +102,16 @@ export function cycleFromZero(h: Hierarchy, b: Float64Array, x: Float64Array, l 
  */
 export function completeCycle(h: Hierarchy, b: Float64Array, x: Float64Array, l: number, dot: boolean): number {
   const op = h.levels[l];
-  for (let s = 1; s < h.sweeps; s++) smoothRedBlack(op, x, b, 0);
   const coarse = h.levels[l + 1];
   const bc = h.b[l + 1];
   const xc = h.x[l + 1];
-  restrictResidual(op, x, b, coarse, bc);
+  // The last pre-smoothing sweep carries the restriction, the first post-smoothing sweep the prolongation.
+  for (let s = 2; s < h.sweeps; s++) smoothRedBlack(op, x, b, 0);
+  if (h.sweeps > 1) smoothAndRestrict(op, x, b, coarse, bc);
+  else restrictResidual(op, x, b, coarse, bc);
   cycleFromZero(h, bc, xc, l + 1);
-  prolongCorrection(op, x, coarse, xc);
-  for (let s = 1; s < h.sweeps; s++) smoothRedBlack(op, x, b, 1);
+  if (h.sweeps === 1) return prolongAndSmooth(op, x, b, coarse, xc, dot);
+  prolongAndSmooth(op, x, b, coarse, xc);
+  for (let s = 2; s < h.sweeps; s++) smoothRedBlack(op, x, b, 1);
   return smoothRedBlack(op, x, b, 1, dot);
 }

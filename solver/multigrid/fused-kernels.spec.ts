@@ -9,7 +9,7 @@ import { buildHierarchy, cycleFromZero } from './cycle';
 import { multigridCg } from './multigrid-cg';
 import { activeRuns, createOperator, finishOperator, findRuns, residual, type Operator5 } from './operator';
 import { pcg } from './pcg';
-import { smoothRedBlack, smoothRedBlackFromZero } from './smooth';
+import { prolongAndSmooth, smoothAndRestrict, smoothRedBlack, smoothRedBlackFromZero } from './smooth';
 
 function lcg(seed: number) {
   let s = seed >>> 0;
@@ -138,6 +138,24 @@ describe('stretches and the kernels that use them', () => {
     smoothRedBlack(op, x, b, 1);
     smoothRedBlack(op, y, b, 1);
     expect(maxDiff(x, y)).toBeLessThan(1e-14);
+  });
+
+  it('fuses the last pre-smoothing sweep with the restriction and the first post-smoothing sweep with the prolongation', () => {
+    const coarse = coarsen(op);
+    const m = coarse.n1 * coarse.n2;
+    const x = onActive(), y = x.slice();
+    const rcFused = new Float64Array(m), rc = new Float64Array(m);
+    smoothAndRestrict(op, x, b, coarse, rcFused);
+    smoothRedBlack(op, y, b, 0);
+    restrictResidual(op, y, b, coarse, rc);
+    expect(maxDiff(x, y)).toBeLessThan(1e-15);
+    expect(maxDiff(rcFused, rc)).toBeLessThan(1e-15);
+    const xc = Float64Array.from({ length: m }, (_, k) => (coarse.active[k] ? Math.cos(k) : 0));
+    const bxFused = prolongAndSmooth(op, x, b, coarse, xc, true);
+    prolongCorrection(op, y, coarse, xc);
+    const bx = smoothRedBlack(op, y, b, 1, true);
+    expect(maxDiff(x, y)).toBeLessThan(1e-15);
+    expect(bxFused).toBeCloseTo(bx, 12);
   });
 
   it('updates the direction with A p and pᵀAp in one pass, q sharing z’s array', () => {

@@ -1,3 +1,4 @@
+import { clearOnRuns, prolongRow, restrictRow } from './coarsen';
 import { prepared, type Operator5 } from './operator';
 
 /**
@@ -123,4 +124,38 @@ export function smoothRedBlackFromZero(op: Operator5, x: Float64Array, b: Float6
     if (j < op.n2) relaxRowFromZero(op, x, b, j);
     if (j > 0) relaxRow(op, x, b, j - 1, 1);
   }
+}
+
+/**
+ * smoothRedBlack(op, x, b, 0) followed by restrictResidual(op, x, b, coarse, rc) in one pass: the residual of
+ * row j − 2 is restricted once the black volumes of row j − 1 are relaxed, the last its red volumes depend on.
+ */
+export function smoothAndRestrict(op: Operator5, x: Float64Array, b: Float64Array, coarse: Operator5, rc: Float64Array): void {
+  prepared(op);
+  clearOnRuns(coarse, rc);
+  const n2 = op.n2, cn1 = coarse.n1;
+  for (let j = 0; j <= n2 + 1; j++) {
+    if (j < n2) relaxRow(op, x, b, j, 0);
+    if (j > 0 && j <= n2) relaxRow(op, x, b, j - 1, 1);
+    if (j > 1) restrictRow(op, x, b, cn1, rc, j - 2);
+  }
+}
+
+/**
+ * prolongCorrection(op, x, coarse, xc) followed by smoothRedBlack(op, x, b, 1, dot) in one pass: row j is
+ * corrected, then the black volumes of row j − 1 and the red ones of row j − 2 are relaxed.
+ */
+export function prolongAndSmooth(op: Operator5, x: Float64Array, b: Float64Array, coarse: Operator5, xc: Float64Array, dot = false): number {
+  prepared(op);
+  const n2 = op.n2, cn1 = coarse.n1;
+  let bx = 0;
+  for (let j = 0; j <= n2 + 1; j++) {
+    if (j < n2) prolongRow(op, x, cn1, xc, j);
+    if (j > 0 && j <= n2) relaxRow(op, x, b, j - 1, 1);
+    if (j > 1) {
+      relaxRow(op, x, b, j - 2, 0);
+      if (dot) bx += dotRow(op, b, x, j - 2);
+    }
+  }
+  return bx;
 }
