@@ -17,7 +17,7 @@
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
 import { runsOf } from '../grid/fluid-runs';
-import { vcycle, type Hierarchy } from '../multigrid/cycle';
+import { cycleFromZero, type Hierarchy } from '../multigrid/cycle';
 import { activeRuns, type Operator5 } from '../multigrid/operator';
 import type { MergedCouplings } from './cell-merging';
 import { addDivergence, addDivergenceTranspose } from './divergence';
@@ -92,8 +92,9 @@ export function preconditionSaddlePoint(
 ): void {
   const [ru, rv, rp] = blocks(sys, r);
   const [zu, zv, zp] = blocks(sys, z);
-  vcycle(velocity[0], ru, zu);
-  vcycle(velocity[1], rv, zv);
+  // MINRES keeps z at 0 off the unknowns (its support), so the cycles need not clear it first.
+  cycleFromZero(velocity[0], ru, zu);
+  cycleFromZero(velocity[1], rv, zv);
   schur.apply(rp, zp);
 }
 

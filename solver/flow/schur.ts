@@ -21,7 +21,7 @@
  */
 import type { CutCellGrid } from '../grid/cut-cell-grid';
 import { runsOf } from '../grid/fluid-runs';
-import { buildHierarchy, vcycle, type Hierarchy } from '../multigrid/cycle';
+import { buildHierarchy, cycleFromZero, type Hierarchy } from '../multigrid/cycle';
 import { finishOperator, type Operator5 } from '../multigrid/operator';
 import type { CellMerging } from './cell-merging';
 import type { PortFaces } from './port-faces';
@@ -30,7 +30,7 @@ import { openNodes, type Component } from './staggered';
 const { min } = Math;
 
 export interface SchurPreconditioner {
-  /** z = S̃⁻¹ r on the pressure cells. */
+  /** z = S̃⁻¹ r on the pressure cells; z must hold finite values (0 in MINRES) off the fluid cells, left as they are. */
   apply(r: Float64Array, z: Float64Array): void;
   poisson: Operator5;
   hierarchy: Hierarchy;
@@ -120,7 +120,7 @@ export function cahouetChabard(input: SchurInput): SchurPreconditioner {
     hierarchy,
     stokesInverse: stokes,
     apply(r, z) {
-      vcycle(hierarchy, r, z); // 0 off the fluid cells
+      cycleFromZero(hierarchy, r, z); // z is 0 off the fluid cells (MINRES's support) and stays so
       for (let k = 0; k < runs.length; k += 2) for (let c = runs[k], end = runs[k + 1]; c < end; c++) z[c] += stokes[c] * r[c];
       for (let k = 0; k < merged.length; k++) z[merged[k]] = 0;
     },
