@@ -42,7 +42,10 @@ function activeCount(op: Operator5): number {
  */
 export type Coarsening = 'half' | 'extents';
 
-/** Builds levels by coarsening until the coarsest level is small or cheap enough for an exact solve. */
+/**
+ * Builds levels by coarsening until the coarsest level is small or cheap enough for an exact solve; the cycles
+ * make `sweeps` (at least 1) red–black sweeps before and after each coarse correction.
+ */
 export function buildHierarchy(fine: Operator5, sweeps = 2, coarsening: Coarsening = 'half', boundaryDistance?: Float64Array): Hierarchy {
   const levels = [fine];
   let n = activeCount(fine);

@@ -184,8 +184,8 @@ describe('stretches and the kernels that use them', () => {
     expect(maxDiff(q, z)).toBeLessThan(1e-14);
   });
 
-  it('runs conjugate gradients with the fused cycle as pcg does with the plain one', () => {
-    const h = buildHierarchy(op, 2);
+  it.each([1, 2, 3])('runs conjugate gradients with the fused cycle as pcg does with the plain one (%i sweeps)', (sweeps) => {
+    const h = buildHierarchy(op, sweeps);
     const x = new Float64Array(n);
     const reference = pcg(op, b, x, { tolerance: 1e-10, precondition: (r, z) => cycleFromZero(h, r, z) });
     const y = new Float64Array(n).fill(NaN);

@@ -1,6 +1,7 @@
 import { directionAndProduct, dotOnRuns, residualAndNorms, startFromZero, stepAndFirstSweep, stepAndNorm } from './cg-kernels';
 import { completeCycle, cycleFromZero, type Hierarchy } from './cycle';
 import { activeRuns, zeroInactive } from './operator';
+import { smoothRedBlackFromZero } from './smooth';
 import type { KrylovResult } from './pcg';
 
 const { sqrt } = Math;
@@ -64,8 +65,14 @@ export function multigridCg(h: Hierarchy, b: Float64Array, x: Float64Array, work
   if (history[0] <= tol) return { iterations: 0, relativeResidual: history[0], converged: true, history };
   // One level only: the cycle is the exact solve, and there is no sweep to fuse with.
   const fused = h.levels.length > 1;
-  cycleFromZero(h, r, q);
-  let rz = dotOnRuns(r, q, runs);
+  let rz: number;
+  if (fused) {
+    smoothRedBlackFromZero(op, q, r);
+    rz = completeCycle(h, r, q, 0, true);
+  } else {
+    cycleFromZero(h, r, q);
+    rz = dotOnRuns(r, q, runs);
+  }
   let beta = 0;
   let it = 0;
   while (it < maxIt) {
