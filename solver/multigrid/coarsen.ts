@@ -72,7 +72,7 @@ export function prolongAdd(fine: Operator5, x: Float64Array, coarse: Operator5, 
  * colour 0, as they are now), so only colour-0 volumes are evaluated, each added to its parent in rc.
  * Equal to `residual` then `restrict` up to the rounding of the colour-1 zeros (the vanishing half of the
  * residual after red–black relaxation: U. Trottenberg, C. W. Oosterlee & A. Schüller, Multigrid, Academic Press
- * 2001, §4.3). x must be finite everywhere; only rc's entries on the active coarse volumes are written.
+ * 2001). x must be finite everywhere; only rc's entries on the active coarse volumes are written.
  */
 export function restrictResidual(fine: Operator5, x: Float64Array, b: Float64Array, coarse: Operator5, rc: Float64Array): void {
   clearOnRuns(coarse, rc);
