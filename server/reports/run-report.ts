@@ -2,6 +2,7 @@ import { deflateSync } from 'node:zlib';
 import PDFDocument from 'pdfkit';
 import type { DesignDocument } from '../../shared/design';
 import { COLOUR_MAPS } from '../../shared/colour-maps';
+import { LIMITS } from '../../shared/physics';
 import { fluidRegion } from '../../solver/geometry/fluid-region';
 import { channelWidths } from '../../solver/geometry/channel-width';
 import { ductError } from '../../solver/io/duct-error';
@@ -23,7 +24,7 @@ export interface ReportInput {
 
 const TEAL = '#0f5e63', AMBER = '#b36b00', INK = '#222222', GREY = '#666666';
 const MAPS: MapQuantity[] = ['potential', 'fieldStrength', 'speed', 'vorticity', 'pressure'];
-const HV = 50;
+const HV = LIMITS.highVoltage;
 
 /** Text for the PDF's standard fonts (WinAnsi): Greek and math signs spelled out. */
 function plain(text: string): string {
