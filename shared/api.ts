@@ -239,7 +239,7 @@ export interface RevisionDetail extends RevisionSummary {
 
 /** A run's summary: the port table, metrics and warnings of the solve (the CLI's --json result, less the fields). */
 export interface RunSummary {
-  ports?: { id: string; potential?: number | null; current?: number; flowRate?: number }[];
+  ports?: { id: string; potential?: number | null; current?: number; flowRate?: number; /** m/s (added field). */ meanSpeed?: number }[];
   metrics?: Record<string, number | null>;
   warnings?: { code: string; message: string }[];
   [key: string]: unknown;

@@ -22,6 +22,11 @@ export interface PortResult {
   current: number;
   /** m³/s, positive when liquid enters the fluid through the port. */
   flowRate: number;
+  /**
+   * m/s: mean speed in the channel leg the port feeds, |flowRate| / (port width × depth); never negative.
+   * Added field: absent from results written before it (stored runs), and from superposed sweep points.
+   */
+  meanSpeed?: number;
 }
 
 /** A probe outside the fluid has inside: false and no values; a value that was not computed is null. */
@@ -50,6 +55,12 @@ export interface SolveMetrics {
   debyeLength: number;
   /** ρ U_max D_h / μ with D_h of the narrowest channel. */
   reynolds: number;
+  /**
+   * 1/s: largest in-plane shear rate at the side walls, |(u_cell − u_wall)·t| / δ with δ the distance from the
+   * wall cell's fluid centroid to the wall (solver/flow/flow-metrics.ts). Added field: absent from results
+   * written before it (stored runs).
+   */
+  maxWallShearRate?: number;
 }
 
 export interface SolveWarning {

@@ -28,7 +28,8 @@ describe('solveDesign', () => {
     expect(r.grid).toEqual({ nx: 82, ny: 10, spacing: 1.25e-5, fluidCells: 640 });
     expect(r.ports.map((p) => p.id)).toEqual(['A', 'B']);
     expect(r.ports[0].current).toBeGreaterThan(0);
-    expect(Object.keys(r.metrics).sort()).toEqual(['debyeLength', 'joulePower', 'maxField', 'maxSpeed', 'reynolds']);
+    expect(Object.keys(r.metrics).sort()).toEqual(['debyeLength', 'joulePower', 'maxField', 'maxSpeed', 'maxWallShearRate', 'reynolds']);
+    expect(r.ports.map((p) => Object.keys(p))).toEqual([0, 1].map(() => ['id', 'potential', 'current', 'flowRate', 'meanSpeed']));
     expect(Object.keys(r.solver).sort()).toEqual(['flowIterations', 'flowSeconds', 'potentialIterations', 'potentialSeconds', 'residual', 'seconds']);
     expect(r.metrics.maxField).toBeCloseTo(1e4, 3);
     const [inside, outside] = r.probes;
@@ -56,6 +57,33 @@ describe('solveDesign', () => {
     const bottom = f.streamfunction[i + 1 * f.nx], top = f.streamfunction[i + 8 * f.nx];
     // Cell values are corner means: the rows next to the walls sit half a row in, 7 of 8 rows apart.
     expect((top - bottom) / (r.ports[0].flowRate / design.depth)).toBeCloseTo(7 / 8, 5);
+  });
+
+  it('gives the mean speed of each port’s leg, |Q| / (width × depth), and the side-wall shear rate of the closed form', () => {
+    // Pressure-driven Brinkman channel, 100 µm wide and deep, 20 cells across: physics.md §3 gives
+    // u(y) = U (1 − cosh(k y)/cosh(k w/2)), U = G d²/(12 μ), k = √12/d, so the wall shear rate is U k tanh(k w/2).
+    const w = 1e-4, L = 4e-4, d = 1e-4, dp = 5;
+    const design = channel({
+      depth: d,
+      shapes: [{ op: 'add', type: 'rect', x: 0, y: 0, width: L, height: w }],
+      ports: [
+        { id: 'A', from: [0, 0], to: [0, w], potential: 0, pressure: dp },
+        { id: 'B', from: [L, 0], to: [L, w], potential: 0, pressure: 0 },
+      ],
+    });
+    const r = solveDesign(design, { cells: 80 });
+    const [a, b] = r.ports;
+    expect(a.flowRate).toBeGreaterThan(0);
+    expect(a.meanSpeed! / (Math.abs(a.flowRate) / (w * d))).toBeCloseTo(1, 12);
+    expect(b.meanSpeed! / (Math.abs(b.flowRate) / (w * d))).toBeCloseTo(1, 12);
+    // The mean speed sits below the centre-line speed: 0.70 of it for this profile (k w/2 = 1.73).
+    expect(a.meanSpeed! / r.metrics.maxSpeed).toBeGreaterThan(0.6);
+    expect(a.meanSpeed! / r.metrics.maxSpeed).toBeLessThan(0.8);
+    const mu = design.buffer.viscosity, k = Math.sqrt(12) / d, U = ((dp / L) * d * d) / (12 * mu);
+    expect(Math.abs(r.metrics.maxWallShearRate! / (U * k * Math.tanh((k * w) / 2)) - 1)).toBeLessThan(0.01);
+    const json = JSON.parse(JSON.stringify(resultJson(r)));
+    expect(json.ports[0].meanSpeed).toBe(a.meanSpeed);
+    expect(json.metrics.maxWallShearRate).toBe(r.metrics.maxWallShearRate);
   });
 
   it('reports progress through the stages in order', () => {

@@ -185,6 +185,7 @@ function solveValidated(design: DesignDocument, options: SolveOptions): SolveRes
       potential: pot.portPotential[k],
       current: pot.portCurrent[k],
       flowRate: flow.portFlowRate[k],
+      ...finite('meanSpeed', flow.portMeanSpeed?.[k]),
     })),
     probes,
     metrics: {
@@ -193,6 +194,7 @@ function solveValidated(design: DesignDocument, options: SolveOptions): SolveRes
       maxSpeed,
       debyeLength: lambda,
       reynolds: re,
+      ...finite('maxWallShearRate', flow.maxWallShearRate),
     },
     warnings,
     solver: {
@@ -205,6 +207,11 @@ function solveValidated(design: DesignDocument, options: SolveOptions): SolveRes
     },
     fields,
   };
+}
+
+/** { [key]: value } for a finite value, else nothing: derived figures a flow stage may not give stay absent. */
+function finite<K extends string>(key: K, value: number | undefined): { [P in K]?: number } {
+  return value !== undefined && Number.isFinite(value) ? ({ [key]: value } as { [P in K]?: number }) : {};
 }
 
 function now(): number {

@@ -114,14 +114,16 @@ export function runReportPdf(input: ReportInput): Promise<Buffer> {
   );
 
   heading('Port table');
-  para('Current and flow rate are positive when they enter the fluid through the port; they sum to zero over the ports.');
+  para('Current and flow rate are positive when they enter the fluid through the port; they sum to zero over the ports. ' +
+    'Mean speed is that of the channel leg the port feeds: |flow rate| / (port width × depth).');
   doc.moveDown(0.3);
   table(
-    [{ title: 'Port', width: 70 }, { title: 'Potential (V)', width: 100 }, { title: 'Current (µA)', width: 110 }, { title: 'Flow rate (nL/min)', width: 120 }],
-    result.ports.map((p) => [p.id, p.potential === null ? '-' : num(p.potential), num(p.current * 1e6), num(p.flowRate * 6e13)]),
+    [{ title: 'Port', width: 60 }, { title: 'Potential (V)', width: 90 }, { title: 'Current (µA)', width: 100 }, { title: 'Flow rate (nL/min)', width: 115 }, { title: 'Mean speed (mm/s)', width: 115 }],
+    result.ports.map((p) => [p.id, p.potential === null ? '-' : num(p.potential), num(p.current * 1e6), num(p.flowRate * 6e13), p.meanSpeed === undefined ? '-' : num(p.meanSpeed * 1e3)]),
   );
   const m = result.metrics;
-  para(`Joule power ${num(m.joulePower)} W · largest field ${num(m.maxField)} V/m · largest speed ${num(m.maxSpeed)} m/s · Debye length ${lengthLabel(m.debyeLength)} · ` +
+  para(`Joule power ${num(m.joulePower)} W · largest field ${num(m.maxField)} V/m · largest speed ${num(m.maxSpeed)} m/s · ` +
+    `largest wall shear rate ${num(m.maxWallShearRate)} 1/s · Debye length ${lengthLabel(m.debyeLength)} · ` +
     `Reynolds number ${num(m.reynolds, 3)} · grid ${result.grid.nx} × ${result.grid.ny} cells of ${lengthLabel(result.grid.spacing)}.`);
 
   heading('Warnings');

@@ -24,7 +24,10 @@ describe('osmolane solve', () => {
     expect(Object.keys(result).sort()).toEqual(['grid', 'metrics', 'ports', 'probes', 'solver', 'warnings']);
     expect(result.grid).toMatchObject({ nx: 242, spacing: 1.25e-5 });
     expect(result.ports.map((p: { id: string }) => p.id)).toEqual(['A', 'B', 'C']);
-    expect(Object.keys(result.ports[0]).sort()).toEqual(['current', 'flowRate', 'id', 'potential']);
+    expect(Object.keys(result.ports[0]).sort()).toEqual(['current', 'flowRate', 'id', 'meanSpeed', 'potential']);
+    // Added fields: the mean speed of port A's 100 µm × 20 µm leg is |Q| / (w d); the wall shear rate is a number.
+    expect(result.ports[0].meanSpeed / (Math.abs(result.ports[0].flowRate) / (1e-4 * 2e-5))).toBeCloseTo(1, 9);
+    expect(typeof result.metrics.maxWallShearRate).toBe('number');
     expect(result.ports[2].potential).toBeCloseTo(250, 3);
     expect(result.probes[0]).toMatchObject({ at: [1e-3, 5e-5], inside: true });
     expect(Object.keys(result.probes[0]).sort()).toEqual(['at', 'field', 'inside', 'potential', 'pressure', 'velocity', 'vorticity']);

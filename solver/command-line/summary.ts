@@ -1,4 +1,4 @@
-/** The human-readable result of `osmolane solve` (without --json): ports, probes, metrics, warnings. */
+/** The human-readable result of `osmolane solve` (without --json): ports with the mean speed of their legs, probes, metrics, warnings. */
 import type { DesignDocument } from '../../shared/design';
 import type { SolveResult } from '../result/types';
 
@@ -29,11 +29,11 @@ export function formatSummary(design: DesignDocument, result: SolveResult): stri
   out.push(`${design.name}`);
   out.push(`grid ${grid.nx} × ${grid.ny} cells of ${formatSI(grid.spacing, 'm')} (${grid.fluidCells.toLocaleString('en-US')} with fluid)`);
   out.push('');
-  out.push('ports (current and flow rate positive into the chip):');
-  const portRows = [['port', 'potential', 'current', 'flow rate']];
+  out.push('ports (current and flow rate positive into the chip; mean speed in the channel leg the port feeds):');
+  const portRows = [['port', 'potential', 'current', 'flow rate', 'mean speed']];
   for (const p of result.ports) {
     const floating = design.ports.find((q) => q.id === p.id)?.potential === null;
-    portRows.push([p.id, `${formatSI(p.potential, 'V')}${floating ? ' (floating)' : ''}`, formatSI(p.current, 'A'), formatFlow(p.flowRate)]);
+    portRows.push([p.id, `${formatSI(p.potential, 'V')}${floating ? ' (floating)' : ''}`, formatSI(p.current, 'A'), formatFlow(p.flowRate), formatSI(p.meanSpeed, 'm/s')]);
   }
   out.push(...table(portRows).map((l) => `  ${l}`));
   if (result.probes.length > 0) {
@@ -62,6 +62,7 @@ export function formatSummary(design: DesignDocument, result: SolveResult): stri
     ['Joule power', formatSI(metrics.joulePower, 'W')],
     ['largest field', formatSI(metrics.maxField, 'V/m')],
     ['largest speed', formatSI(metrics.maxSpeed, 'm/s')],
+    ['largest wall shear rate', metrics.maxWallShearRate === undefined ? '—' : `${Number(metrics.maxWallShearRate.toPrecision(4))} 1/s`],
     ['Debye length', formatSI(metrics.debyeLength, 'm')],
     ['Reynolds number', Number(metrics.reynolds.toPrecision(3)).toString()],
   ]).map((l) => `  ${l}`));

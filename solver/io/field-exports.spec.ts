@@ -60,13 +60,22 @@ describe('CSV of a solve', () => {
     const csv = resultsCsv({ name: 'T, "junction"', ports: result.ports, probes: result.probes, fields: f, cutLines: [{ name: 'across', from: [f.x0, y], to: [f.x0 + f.nx * f.spacing, y], samples: 11 }] });
     const lines = csv.split('\r\n');
     expect(lines[0]).toBe('# Osmolane results: T, "junction"');
-    expect(lines).toContain('table,port,potential_V,current_A,flow_rate_m3_per_s');
+    expect(lines).toContain('table,port,potential_V,current_A,flow_rate_m3_per_s,mean_speed_m_per_s');
     const ports = lines.filter((l) => l.startsWith('ports,'));
     expect(ports).toHaveLength(result.ports.length);
     expect(Number(ports[0].split(',')[3])).toBe(result.ports[0].current);
+    // Port A feeds the 100 µm wide, 20 µm deep main channel: mean speed |Q| / (w d).
+    const meanA = Number(ports[0].split(',')[5]);
+    expect(meanA).toBe(result.ports[0].meanSpeed);
+    expect(meanA / (Math.abs(result.ports[0].flowRate) / (1e-4 * 2e-5))).toBeCloseTo(1, 9);
     const probes = lines.filter((l) => l.startsWith('probes,'));
     expect(probes[1]).toBe('probes,2,1,1,false,,,,,,,');
     expect(lines.filter((l) => l.startsWith('cut_lines,across,'))).toHaveLength(11);
+  });
+
+  it('leaves the mean speed empty for a port table without it (a result from before it was computed)', () => {
+    const csv = resultsCsv({ name: 'older', ports: [{ id: 'A', potential: 10, current: 1e-6, flowRate: 2e-12 }] });
+    expect(csv.split('\r\n')).toContain('ports,A,10,0.000001,2e-12,');
   });
 
   it('samples a cut line cell by cell', () => {

@@ -2,7 +2,8 @@
  * Results as CSV (RFC 4180: comma separated, CRLF line ends, fields with commas or quotes quoted): the port
  * table, the probes and cut-line profiles, one table after another, each with its own header row whose first
  * column names the table. SI units in the column names; currents and flow rates positive INTO the fluid
- * (physics.md). Lines starting with # are comments (name, units, sign convention).
+ * (physics.md); the mean speed (of the channel leg a port feeds) is a magnitude, empty where it was not computed.
+ * Lines starting with # are comments (name, units, sign convention).
  */
 import type { Point } from '../../shared/design';
 import type { PortResult, ProbeResult, SolveFields } from '../result/types';
@@ -72,8 +73,8 @@ export function resultsCsv(input: CsvInput): string {
   const lines: string[] = [
     `# Osmolane results: ${input.name.replace(/[\r\n]+/g, ' ')}`,
     '# SI units; current and flow rate are positive when they enter the fluid through the port',
-    row(['table', 'port', 'potential_V', 'current_A', 'flow_rate_m3_per_s']),
-    ...input.ports.map((p) => row(['ports', p.id, p.potential, p.current, p.flowRate])),
+    row(['table', 'port', 'potential_V', 'current_A', 'flow_rate_m3_per_s', 'mean_speed_m_per_s']),
+    ...input.ports.map((p) => row(['ports', p.id, p.potential, p.current, p.flowRate, p.meanSpeed])),
   ];
   if (input.probes && input.probes.length) {
     lines.push('', row(['table', 'probe', 'x_m', 'y_m', 'inside', 'potential_V', 'field_x_V_per_m', 'field_y_V_per_m', 'velocity_x_m_per_s', 'velocity_y_m_per_s', 'vorticity_1_per_s', 'pressure_Pa']));

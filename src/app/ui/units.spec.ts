@@ -108,9 +108,10 @@ describe('result quantities', () => {
     expect(formatQuantity(1e-12, 'flowRate')).toBe('60 nL/min');
     expect(formatQuantity(-3200, 'vorticity')).toBe('-3200 1/s');
     expect(formatQuantity(0.0123, 'power')).toBe('12.3 mW');
+    expect(formatQuantity(48213.7, 'shearRate')).toBe('48210 1/s');
     const cases: Array<[number, Dimension]> = [
       [2.5e5, 'fieldStrength'], [1.2e-3, 'velocity'], [-2.8e-5, 'current'], [1e-12, 'flowRate'], [-3200, 'vorticity'],
-      [5e-8, 'streamfunction'], [0.0123, 'power'],
+      [5e-8, 'streamfunction'], [0.0123, 'power'], [4821, 'shearRate'],
     ];
     for (const [v, dim] of cases) {
       const back = parseQuantity(formatQuantity(v, dim), dim);

@@ -29,6 +29,7 @@ export type Dimension =
   | 'current'
   | 'flowRate'
   | 'vorticity'
+  | 'shearRate'
   | 'streamfunction'
   | 'power'
   // Tracer and double layer.
@@ -221,6 +222,15 @@ const DIMENSIONS: Record<Dimension, DimensionInfo> = {
     si: '1/s',
     example: '120 1/s',
     // Per second only: "3200 1/s" reads more plainly than "3.2 1/ms".
+    display: [{ label: '1/s', factor: 1 }],
+    zero: '1/s',
+    digits: 4,
+  },
+  shearRate: {
+    noun: 'a shear rate',
+    si: '1/s',
+    example: '500 1/s',
+    // Per second, as cell-adhesion and shear-stress papers quote wall shear rates.
     display: [{ label: '1/s', factor: 1 }],
     zero: '1/s',
     digits: 4,

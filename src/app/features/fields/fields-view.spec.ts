@@ -5,6 +5,7 @@ import { Router, provideRouter } from '@angular/router';
 import { CompressionStream, DecompressionStream } from 'node:stream/web';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import { readFieldBlob, writeFieldBlob } from '../../../../solver/result/field-blob';
+import type { SolveResult } from '../../../../solver/result/types';
 import { CANCELLED, SOLVER, type SolveOutcome, type SolverClient } from '../../core/solver-client';
 import { measureLayout, solveOutcome } from '../../../workers/worker-solve';
 import { FieldsView } from './fields-view';
@@ -32,15 +33,18 @@ function straight(potentialA = 40): DesignDocument {
 }
 
 /** The real solver behind a fake worker: same outcome, no Worker. */
-function fakeSolver(over: Partial<SolverClient> = {}): SolverClient & { calls: number } {
+function fakeSolver(over: Partial<SolverClient> = {}): SolverClient & { calls: number; last: SolveResult | null } {
   const fake = {
     calls: 0,
+    last: null as SolveResult | null,
     hello: async () => ({ ready: true, at: 0 }),
     measure: async (design: unknown) => measureLayout(design),
     solve: async (design: unknown, options: { cells?: number }, onProgress?: (p: { stage: 'potential'; fraction: number }) => void) => {
       fake.calls++;
       onProgress?.({ stage: 'potential', fraction: 0.5 });
-      return solveOutcome(design, { cells: options.cells ?? 80 });
+      const outcome = solveOutcome(design, { cells: options.cells ?? 80 });
+      fake.last = outcome.ok ? outcome.result : null;
+      return outcome;
     },
     cancel: jest.fn(),
     ...over,
@@ -112,6 +116,16 @@ describe('FieldsView', () => {
     expect(q('field-map')).not.toBeNull();
     expect(q('colour-bar')?.textContent).toContain('V');
     expect(q('metrics')?.textContent).toContain('Joule power');
+    // The mean speed of each leg is |Q| / (port width × depth): 50 µm × 20 µm here.
+    const means = all('port-mean-speed');
+    const ports = solver.last!.ports;
+    expect(means.map((m, k) => Number(m.getAttribute('data-value')) / (Math.abs(ports[k].flowRate) / (5e-5 * 2e-5)))).toEqual([
+      expect.closeTo(1, 9), expect.closeTo(1, 9),
+    ]);
+    expect(means[0].textContent?.trim()).toMatch(/^[\d.]+ (mm|µm)\/s$/);
+    const shear = q('metric-wall-shear')!;
+    expect(Number(shear.getAttribute('data-value'))).toBe(solver.last!.metrics.maxWallShearRate);
+    expect(shear.textContent?.trim()).toMatch(/^[\d.e+-]+ 1\/s$/);
     await settle(fixture, 300); // the layout measure (narrowest channel) arrives from the worker
     // The model's error against the exact duct at depth/width 0.4: between the +1.57 % (0.25) and +3.77 % (0.5)
     // of the rectangular-duct table in reference-values.md §5.
@@ -233,5 +247,34 @@ describe('FieldsView', () => {
     expect(q('fields-hv-caution')?.textContent).toContain('Port A at 1.5 kV');
     expect(q('field-map')).not.toBeNull();
     expect(q('save-run')).toBeNull();
+    // Stored with the added figures: they read back.
+    expect(all('port-mean-speed').map((c) => Number(c.getAttribute('data-value')))).toEqual(outcome.result.ports.map((p) => p.meanSpeed));
+  });
+
+  it('opens a run stored before the mean speed and wall shear rate existed: – in their places, the rest as stored', async () => {
+    const doc = straight();
+    const outcome = solveOutcome(doc, { cells: 80 });
+    if (!outcome.ok) throw new Error('solve failed');
+    const blob = await writeFieldBlob(outcome.result.fields);
+    const summary = runSummary(outcome.result);
+    const older = {
+      ...summary,
+      ports: summary.ports!.map(({ meanSpeed: _m, ...p }) => p),
+      metrics: Object.fromEntries(Object.entries(summary.metrics!).filter(([k]) => k !== 'maxWallShearRate')),
+    };
+    await create({ runId: 5, readOnly: true });
+    http.expectOne('/api/runs/5').flush({
+      id: 5, revisionId: 4, status: 'solved', settings: { cells: 80 }, summary: older,
+      createdAt: '2026-10-01T10:00:00Z', author: { id: 2, name: 'Jonas Lindqvist' }, hasFields: true,
+    });
+    await settle(fixture);
+    http.expectOne('/api/runs/5/fields').flush(blob.buffer.slice(blob.byteOffset, blob.byteOffset + blob.byteLength));
+    http.expectOne('/api/revisions/4').flush({ id: 4, number: 1, note: '', designId: 7, document: doc, createdAt: '2026-10-01T09:00:00Z', author: { id: 2, name: 'Jonas Lindqvist' } });
+    for (let k = 0; k < 20 && !q('run-shown'); k++) await settle(fixture, 20);
+    expect(all('port-row')).toHaveLength(2);
+    expect(all('port-mean-speed').map((c) => c.textContent?.trim())).toEqual(['–', '–']);
+    expect(all('port-current').map((c) => Number(c.getAttribute('data-value')))).toEqual(outcome.result.ports.map((p) => p.current));
+    expect(q('metric-wall-shear')?.textContent?.trim()).toBe('–');
+    expect(q('metric-reynolds')?.textContent?.trim()).not.toBe('–');
   });
 });

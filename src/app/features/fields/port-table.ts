@@ -13,14 +13,15 @@ export interface PortRow extends PortResult {
 }
 
 /**
- * The port table: potential, current and flow rate of each port, with the sums that Kirchhoff and mass balance
- * make zero. Current and flow rate count positive INTO the fluid through the port (physics.md §2-3).
+ * The port table: potential, current, flow rate and the mean speed in the channel leg each port feeds, with the
+ * sums that Kirchhoff and mass balance make zero. Current and flow rate count positive INTO the fluid through
+ * the port (physics.md §2-3); the mean speed is a magnitude. Runs stored before the mean speed existed show –.
  */
 @Component({
   selector: 'osm-port-table',
   imports: [MatTableModule, MatTooltipModule, MatIconModule, QuantityPipe],
   template: `
-    <table mat-table [dataSource]="ports()" class="dense-table" aria-label="Ports: potential, current and flow rate" data-testid="port-results">
+    <table mat-table [dataSource]="ports()" class="dense-table" aria-label="Ports: potential, current, flow rate and mean speed" data-testid="port-results">
       <ng-container matColumnDef="port">
         <th mat-header-cell *matHeaderCellDef>Port</th>
         <td mat-cell *matCellDef="let p" [matTooltip]="p.name" class="id">{{ p.id }}</td>
@@ -43,17 +44,24 @@ export interface PortRow extends PortResult {
         <td mat-cell *matCellDef="let p" class="num" data-testid="port-flow">{{ p.flowRate | quantity: 'flowRate' : 4 }}</td>
         <td mat-footer-cell *matFooterCellDef class="num" data-testid="flow-sum" [matTooltip]="balanceNote(flows(), 'flowRate')">{{ balanceText(flows(), 'flowRate') }}</td>
       </ng-container>
+      <ng-container matColumnDef="meanSpeed">
+        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Mean speed in the channel leg the port feeds: |flow rate| / (port width × depth)">Mean speed<mat-icon class="info" aria-hidden="true">info</mat-icon></th>
+        <td mat-cell *matCellDef="let p" class="num" data-testid="port-mean-speed" [attr.data-value]="p.meanSpeed ?? null">{{ p.meanSpeed | quantity: 'velocity' : 4 }}</td>
+        <td mat-footer-cell *matFooterCellDef></td>
+      </ng-container>
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
       <tr mat-row *matRowDef="let row; columns: columns" data-testid="port-row"></tr>
       <tr mat-footer-row *matFooterRowDef="columns" class="sum"></tr>
     </table>
     <p class="caption muted">
       Current and flow rate count positive <strong>into</strong> the fluid through the port, negative out of it; Σ is
-      zero up to the solver's tolerance (Kirchhoff, mass balance).
+      zero up to the solver's tolerance (Kirchhoff, mass balance). Mean speed is that of the channel leg the port
+      feeds; – where a stored run predates it.
     </p>
   `,
   styles: `
-    :host { display: block; }
+    /* Five columns in the side panel: a narrow window scrolls the table sideways rather than clipping it. */
+    :host { display: block; overflow-x: auto; }
     table { font-size: 12.5px; }
     .mat-mdc-table .mat-mdc-row, .mat-mdc-table .mat-mdc-header-row, .mat-mdc-table .mat-mdc-footer-row { height: 30px; }
     .mat-mdc-cell, .mat-mdc-header-cell, .mat-mdc-footer-cell { padding: 0 4px; white-space: nowrap; }
@@ -68,7 +76,7 @@ export interface PortRow extends PortResult {
 })
 export class PortTable {
   readonly ports = input.required<PortRow[]>();
-  protected readonly columns = ['port', 'potential', 'current', 'flowRate'];
+  protected readonly columns = ['port', 'potential', 'current', 'flowRate', 'meanSpeed'];
   protected readonly currents = computed(() => currentBalance(this.ports()));
   protected readonly flows = computed(() => flowBalance(this.ports()));
 

@@ -16,8 +16,8 @@ describe('shown solve', () => {
       hasFields: true,
       settings: { cells: 600, cellsAcross: 10, narrowest: 5e-5 },
       summary: {
-        ports: [{ id: 'A', potential: 1500, current: 2e-5, flowRate: -1e-12 }, { id: 'B', potential: null, current: -2e-5, flowRate: 1e-12 }],
-        metrics: { joulePower: 0.03, maxField: 3e5, reynolds: null },
+        ports: [{ id: 'A', potential: 1500, current: 2e-5, flowRate: -1e-12, meanSpeed: 1e-3 }, { id: 'B', potential: null, current: -2e-5, flowRate: 1e-12 }],
+        metrics: { joulePower: 0.03, maxField: 3e5, reynolds: null, maxWallShearRate: 480 },
         warnings: [{ code: 'high-voltage', message: 'A port is at 1500 V.' }],
         grid: { nx: 3, ny: 2, spacing: 1e-5, fluidCells: 6 },
       },
@@ -25,8 +25,10 @@ describe('shown solve', () => {
     const shown = fromRun(run, fields, null);
     expect(shown.source).toBe('run');
     expect(shown.runId).toBe(12);
-    expect(shown.ports[1]).toEqual({ id: 'B', potential: null, current: -2e-5, flowRate: 1e-12 });
-    expect(shown.metrics).toEqual({ joulePower: 0.03, maxField: 3e5 });
+    expect(shown.ports[0]).toEqual({ id: 'A', potential: 1500, current: 2e-5, flowRate: -1e-12, meanSpeed: 1e-3 });
+    // B was stored without a mean speed (a run from before it): no key at all, so the table shows –.
+    expect(shown.ports[1]).toStrictEqual({ id: 'B', potential: null, current: -2e-5, flowRate: 1e-12 });
+    expect(shown.metrics).toEqual({ joulePower: 0.03, maxField: 3e5, maxWallShearRate: 480 });
     expect(shown.warnings[0].code).toBe('high-voltage');
     expect([shown.cells, shown.cellsAcross, shown.narrowest]).toEqual([600, 10, 5e-5]);
     expect(shown.stored?.by).toBe('Jonas Lindqvist');

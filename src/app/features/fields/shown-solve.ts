@@ -78,12 +78,17 @@ const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFi
 /** A stored run with its fields, as the tab shows it. */
 export function fromRun(run: RunDetail, fields: SolveFields, document: DesignDocument | null): ShownSolve {
   const summary = run.summary ?? {};
-  const ports: PortResult[] = (summary.ports ?? []).map((p) => ({
-    id: p.id,
-    potential: p.potential ?? null,
-    current: num(p.current) ?? NaN,
-    flowRate: num(p.flowRate) ?? NaN,
-  }));
+  const ports: PortResult[] = (summary.ports ?? []).map((p) => {
+    const meanSpeed = num(p.meanSpeed);
+    // Runs stored before the mean speed was part of the summary have none: the table shows –.
+    return {
+      id: p.id,
+      potential: p.potential ?? null,
+      current: num(p.current) ?? NaN,
+      flowRate: num(p.flowRate) ?? NaN,
+      ...(meanSpeed !== null ? { meanSpeed } : {}),
+    };
+  });
   const metrics: Partial<SolveMetrics> = {};
   for (const [k, v] of Object.entries(summary.metrics ?? {})) if (v !== null) (metrics as Record<string, number>)[k] = v;
   const settings = run.settings ?? {};
