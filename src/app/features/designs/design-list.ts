@@ -9,8 +9,10 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap } from 'rxjs';
 import { Api } from '../../core/api';
@@ -18,6 +20,7 @@ import type { Design, DesignSummary, Page } from '../../core/api-types';
 import { errorMessage } from '../../core/error-message';
 import { canEdit } from '../../core/roles';
 import { WorkspaceContext } from '../../core/workspace-context';
+import { ConfirmDialog, type ConfirmData } from '../../ui/confirm-dialog';
 import { ReviewChip } from '../../ui/review-chip';
 import { NewDesignDialog, type NewDesignData } from './new-design-dialog';
 import { ImportOutlineDialog, type ImportOutlineData } from '../files/import-outline-dialog';
@@ -34,7 +37,10 @@ interface Query {
   reload: number;
 }
 
-/** The workspace's designs: a server-side sorted, filtered and paged table, and "New design". */
+/**
+ * The workspace's designs: a server-side sorted, filtered and paged table, "New design", and for editors and
+ * owners a delete action per row (after a confirmation that names what goes with the design).
+ */
 @Component({
   selector: 'osm-design-list',
   imports: [
@@ -49,6 +55,7 @@ interface Query {
     MatButtonModule,
     MatIconModule,
     MatProgressBarModule,
+    MatTooltipModule,
     ReviewChip,
   ],
   templateUrl: './design-list.html',
@@ -59,12 +66,16 @@ export class DesignList {
   private readonly api = inject(Api);
   private readonly dialog = inject(MatDialog);
   private readonly router = inject(Router);
+  private readonly snack = inject(MatSnackBar);
   protected readonly context = inject(WorkspaceContext);
-
-  protected readonly columns = ['name', 'reviewState', 'updatedAt', 'updatedBy'];
   protected readonly pageSizes = [10, 25, 50];
   protected readonly filter = new FormControl('', { nonNullable: true });
   protected readonly mayCreate = computed(() => canEdit(this.context.role()));
+  /** Editors and owners delete designs (the server checks the same role); reviewers and viewers see no action. */
+  protected readonly mayDelete = computed(() => canEdit(this.context.role()));
+  protected readonly columns = computed(() => ['name', 'reviewState', 'updatedAt', 'updatedBy', ...(this.mayDelete() ? ['actions'] : [])]);
+  /** The design whose deletion is under way (its button waits). */
+  protected readonly deleting = signal<DesignSummary['id'] | null>(null);
 
   private readonly query = signal<Query>({ wid: null, q: '', sort: 'updatedAt', order: 'desc', pageIndex: 0, pageSize: 25, reload: 0 });
   protected readonly sort = computed(() => ({ active: this.query().sort, direction: this.query().order }));
@@ -138,6 +149,39 @@ export class DesignList {
       .afterClosed()
       .subscribe((design) => {
         if (design) void this.router.navigate(['/designs', String(design.id)]);
+      });
+  }
+
+  /** Asks, then deletes the design with its revisions, runs, comments and files, and reads the page again. */
+  protected deleteDesign(design: DesignSummary): void {
+    if (this.deleting() !== null) return;
+    this.dialog
+      .open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, {
+        data: {
+          title: `Delete “${design.name}”?`,
+          message:
+            `The design “${design.name}” is deleted with all its revisions, runs, comments and files, for everyone in ` +
+            'this workspace. This cannot be undone.',
+          confirm: 'Delete design',
+        },
+      })
+      .afterClosed()
+      .subscribe((ok) => {
+        if (!ok) return;
+        this.deleting.set(design.id);
+        this.api.deleteDesign(design.id).subscribe({
+          next: () => {
+            this.deleting.set(null);
+            this.snack.open(`“${design.name}” was deleted.`, undefined, { duration: 4000 });
+            // The last row of a later page: show the page before it.
+            const lastOnPage = this.page().items.length === 1 && this.query().pageIndex > 0;
+            this.query.update((q) => ({ ...q, pageIndex: lastOnPage ? q.pageIndex - 1 : q.pageIndex, reload: q.reload + 1 }));
+          },
+          error: (err: unknown) => {
+            this.deleting.set(null);
+            this.snack.open(`“${design.name}” was not deleted: ${errorMessage(err)}`, 'Close', { duration: 8000 });
+          },
+        });
       });
   }
 
