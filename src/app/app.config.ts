@@ -2,10 +2,12 @@ import { provideHttpClient, withFetch, withInterceptors } from '@angular/common/
 import { ApplicationConfig, provideBrowserGlobalErrorListeners, provideZonelessChangeDetection } from '@angular/core';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS, type MatFormFieldDefaultOptions } from '@angular/material/form-field';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
+import { createInstantWorker } from '../workers/instant-worker-factory';
 import { createSolverWorker } from '../workers/solver-worker-factory';
 import { routes } from './app.routes';
 import { authInterceptor } from './core/auth-interceptor';
-import { SOLVER, workerGeometryChecks } from './core/solver-client';
+import { INSTANT, instantGeometryChecks } from './core/instant-client';
+import { SOLVER } from './core/solver-client';
 import { GEOMETRY_CHECKS } from './features/sketch/live-checks';
 
 export const appConfig: ApplicationConfig = {
@@ -15,8 +17,9 @@ export const appConfig: ApplicationConfig = {
     provideRouter(routes, withComponentInputBinding()),
     provideHttpClient(withFetch(), withInterceptors([authInterceptor])),
     { provide: SOLVER, useFactory: createSolverWorker },
-    // The sketch's live geometry checks run in the solver worker.
-    { provide: GEOMETRY_CHECKS, useFactory: workerGeometryChecks },
+    // Outlines, live checks, double layer and presets: a small worker of their own, free while a solve runs.
+    { provide: INSTANT, useFactory: createInstantWorker },
+    { provide: GEOMETRY_CHECKS, useFactory: instantGeometryChecks },
     // Outlined fields keep their labels at the dense setting of our theme (filled ones hide them below density -1).
     { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } satisfies MatFormFieldDefaultOptions },
   ],

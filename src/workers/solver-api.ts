@@ -1,8 +1,17 @@
-import type { DesignProblem } from '../../shared/design';
+import type { DesignDocument } from '../../shared/design';
 import type { Comparison } from '../../solver/compare';
-import type { UnitResponses } from '../../solver/planner';
+import type { Drive, PlanRequest, UnitResponses } from '../../solver/planner';
 import type { SolveProgress, SolveResult } from '../../solver/solve';
 import type { TraceRequest, TraceRun } from '../../solver/tracer';
+import type { PlanOutcome, PlannerBasis, PlannerMap, RecombineOutcome } from './worker-planner';
+
+export type { PlanOutcome, PlannerBasis, PlannerMap, RecombineOutcome } from './worker-planner';
+
+/** The solver's types the page reads (types only: the solver's code stays in the workers). */
+export type { Comparison, ComparisonSide } from '../../solver/compare';
+export type { Drive, PlanRequest, PlanResult, Target, UnitResponses } from '../../solver/planner';
+export type { SolveProgress, SolveResult } from '../../solver/solve';
+export type { Injection, PhaseSpec, TraceFrame, TraceResult, TraceRun } from '../../solver/tracer';
 
 /** What the worker measures of a layout before solving: enough to show cells across the narrowest channel. */
 export interface LayoutMeasure {
@@ -48,8 +57,6 @@ export interface SolverApi {
   measure(design: unknown): Promise<LayoutMeasure>;
   /** Solves; progress goes to the (comlink-proxied) callback, a few times a second at most. */
   solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome>;
-  /** The sketch's live geometry checks on a coarse grid (no notes about resolution). */
-  checkGeometry(design: unknown): Promise<DesignProblem[]>;
 }
 
 /** Progress of an analysis (several solves, then maybe a trace): what is running and how far overall, in [0, 1]. */
@@ -71,12 +78,22 @@ export type WorkerTraceRequest = Omit<TraceRequest, 'shouldStop' | 'onProgress'>
 export type AnalysisOutcome<T> = ({ ok: true; workerMs: number } & T) | { ok: false; error: SolveFailure };
 export type CompareOutcome = AnalysisOutcome<{ comparison: Comparison }>;
 export type ResponsesOutcome = AnalysisOutcome<{ responses: UnitResponses }>;
+export type BasisOutcome = AnalysisOutcome<{ basis: PlannerBasis }>;
 export type TraceOutcome = AnalysisOutcome<{ run: TraceRun }>;
 
 /** The solver worker's analyses (Compare, Planner, Tracer): results come back with their typed arrays transferred. */
 export interface AnalysisApi {
   compare(design: unknown, options: WorkerCompareOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<CompareOutcome>;
-  /** The chip's response to each electrode at 1 V (the planner's basis); fields included, for instant sliders. */
-  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<ResponsesOutcome>;
+  /**
+   * The chip's response to each electrode at 1 V and to each head that is not zero at 1 Pa (the Planner's basis).
+   * The responses stay in the worker; the page gets their drives, the design's settings and the map's grid.
+   */
+  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<BasisOutcome>;
+  /** A map and the port table for drive strengths s, recombined from the basis (no solve): the slider's step. */
+  recombine(basis: number, map: PlannerMap, settings: number[]): Promise<RecombineOutcome>;
+  /** Potentials for targets by bounded least squares on the basis. */
+  plan(basis: number, request: PlanRequest): Promise<PlanOutcome>;
+  /** The design with drive strengths written into its ports. */
+  applySettings(design: DesignDocument, drives: Drive[], settings: number[]): Promise<DesignDocument>;
   trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome>;
 }

@@ -1,11 +1,11 @@
 /// <reference lib="webworker" />
 import { expose, releaseProxy, transfer, type Remote } from 'comlink';
-import type { DesignDocument } from '../../shared/design';
 import type { SolveProgress } from '../../solver/solve';
 import type { AnalysisApi, AnalysisProgress, LayoutMeasure, SolverApi } from './solver-api';
-import { compareOutcome, comparisonBuffers, responsesBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
-import { liveProblems } from './worker-live-checks';
-import { measureLayout, resultBuffers, solveOutcome, throttledProgress } from './worker-solve';
+import { withSettings } from '../../solver/planner';
+import { compareOutcome, comparisonBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
+import { PlannerStore } from './worker-planner';
+import { fieldBuffers, measureLayout, resultBuffers, solveOutcome, throttledProgress } from './worker-solve';
 
 /**
  * The solver, off the main thread. The page talks to it through comlink (see app/core/solver-client.ts); a
@@ -14,6 +14,9 @@ import { measureLayout, resultBuffers, solveOutcome, throttledProgress } from '.
 
 /** The last layout measured (keyed by its shapes): the solve right after a measure need not repeat it. */
 let measured: { key: string; measure: LayoutMeasure } | null = null;
+
+/** The Planner's unit responses, kept here for its sliders and plans. */
+const planner = new PlannerStore();
 
 function measureOf(design: unknown): LayoutMeasure {
   const key = JSON.stringify((design as { shapes?: unknown } | null)?.shapes ?? null);
@@ -44,9 +47,6 @@ const api: SolverApi & AnalysisApi = {
   async measure(design) {
     return measureOf(design);
   },
-  async checkGeometry(design) {
-    return liveProblems(design as DesignDocument);
-  },
   async solve(design, options, onProgress) {
     const remote = onProgress as Remote<(p: SolveProgress) => void> | undefined;
     const report = remote ? throttledProgress((p) => void Promise.resolve(remote(p)).catch(() => undefined)) : undefined;
@@ -70,10 +70,22 @@ const api: SolverApi & AnalysisApi = {
     const [report, release] = analysisReporter(onProgress);
     try {
       const outcome = responsesOutcome(design, options, report);
-      return outcome.ok ? transfer(outcome, responsesBuffers(outcome.responses)) : outcome;
+      if (!outcome.ok) return outcome;
+      const basis = planner.keep(outcome.responses);
+      return transfer({ ok: true as const, workerMs: outcome.workerMs, basis }, fieldBuffers(basis.fields));
     } finally {
       release();
     }
+  },
+  async recombine(basis, map, settings) {
+    const outcome = planner.recombine(basis, map, settings);
+    return outcome.ok ? transfer(outcome, [outcome.values.buffer as ArrayBuffer]) : outcome;
+  },
+  async plan(basis, request) {
+    return planner.plan(basis, request);
+  },
+  async applySettings(design, drives, settings) {
+    return withSettings(design, drives, settings);
   },
   async trace(design, request, onProgress) {
     const [report, release] = analysisReporter(onProgress);

@@ -10,7 +10,7 @@ const RESOLUTION_CODES = new Set(['under-resolved', 'grid-capped']);
 /**
  * The solver's geometry checks (solver/grid/discretise.ts: empty layout, self-crossing outlines, slivers, ports
  * off the outline or overlapping, fluid that touches no port, nothing that drives) on a coarse grid, without the
- * notes about resolution. Runs in the solver worker (the sketch's GEOMETRY_CHECKS in the app).
+ * notes about resolution. Runs in the instant worker (the sketch's GEOMETRY_CHECKS in the app).
  */
 export function liveProblems(doc: DesignDocument): DesignProblem[] {
   try {

@@ -2,6 +2,7 @@
  * The worker's work as plain functions (no worker globals), so specs can run them in Node:
  * measuring a layout, solving it into a SolveOutcome, and listing the buffers to transfer back.
  */
+import type { SolveFields } from '../../shared/result';
 import { parseDesign } from '../../shared/design';
 import { ARC_TOLERANCE } from '../../solver/geometry/arc';
 import { channelWidths } from '../../solver/geometry/channel-width';
@@ -70,7 +71,11 @@ export function solveOutcome(
 
 /** The distinct buffers of a result's field arrays (a buffer listed twice would make the transfer fail). */
 export function resultBuffers(result: SolveResult): ArrayBuffer[] {
-  const f = result.fields;
+  return fieldBuffers(result.fields);
+}
+
+/** The distinct buffers of a set of fields. */
+export function fieldBuffers(f: SolveFields): ArrayBuffer[] {
   const arrays = [f.fraction, f.potential, f.fieldX, f.fieldY, f.velocityX, f.velocityY, f.pressure, f.vorticity, f.streamfunction];
   return [...new Set(arrays.map((a) => a.buffer))].filter((b): b is ArrayBuffer => b instanceof ArrayBuffer && b.byteLength > 0);
 }

@@ -30,7 +30,6 @@ describe('WorkerSolverClient', () => {
     const api: SolverApi = {
       hello: async () => ({ ready: true, at: 1 }),
       measure: async () => ({ narrowest: 5e-5, bounds: [0, 0, 1e-3, 5e-5] }),
-      checkGeometry: async () => [],
       solve: async (_design, options, onProgress) => {
         await onProgress?.({ stage: 'potential', fraction: 0.5 });
         (onProgress as Remote<(p: unknown) => void> | undefined)?.[releaseProxy]();
@@ -51,7 +50,6 @@ describe('WorkerSolverClient', () => {
     const api: SolverApi = {
       hello: async () => ({ ready: true, at: 2 }),
       measure: async () => ({ narrowest: null, bounds: null }),
-      checkGeometry: async () => [],
       // The first solve never finishes (a worker stuck in a long loop); later ones answer.
       solve: () => (calls++ === 0 ? new Promise(() => undefined) : Promise.resolve({ ok: false, error: { code: 'second', message: '' } })),
     };

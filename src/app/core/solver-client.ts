@@ -1,16 +1,20 @@
 import { InjectionToken, inject } from '@angular/core';
 import { proxy, wrap, type Remote } from 'comlink';
-import type { DesignDocument, DesignProblem } from '../../../shared/design';
-import type { SolveProgress } from '../../../solver/solve';
-import type { GeometryChecks } from '../features/sketch/live-checks';
+import type { DesignDocument } from '../../../shared/design';
 import type {
   AnalysisApi,
   AnalysisProgress,
+  BasisOutcome,
   CompareOutcome,
+  Drive,
   LayoutMeasure,
-  ResponsesOutcome,
+  PlanOutcome,
+  PlannerMap,
+  PlanRequest,
+  RecombineOutcome,
   SolveFailure,
   SolveOutcome,
+  SolveProgress,
   SolverApi,
   TraceOutcome,
   WorkerCompareOptions,
@@ -20,17 +24,26 @@ import type {
 
 export type {
   AnalysisProgress,
+  BasisOutcome,
   CompareOutcome,
+  Drive,
   LayoutMeasure,
-  ResponsesOutcome,
+  PlanOutcome,
+  PlannerBasis,
+  PlannerMap,
+  PlanRequest,
+  PlanResult,
+  RecombineOutcome,
+  Target,
   SolveFailure,
   SolveOutcome,
+  SolveProgress,
   TraceOutcome,
   WorkerCompareOptions,
   WorkerSolveOptions,
   WorkerTraceRequest,
 } from '../../workers/solver-api';
-export type { SolveProgress } from '../../../solver/solve';
+
 
 /**
  * The solver as the app sees it. Solves run in a Web Worker; `cancel()` ends that worker (a worker busy in the
@@ -53,7 +66,10 @@ export const SOLVER = new InjectionToken<SolverClient>('Osmolane solver worker')
  */
 export interface AnalysisClient {
   compare(design: unknown, options: WorkerCompareOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<CompareOutcome>;
-  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<ResponsesOutcome>;
+  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<BasisOutcome>;
+  recombine(basis: number, map: PlannerMap, settings: number[]): Promise<RecombineOutcome>;
+  plan(basis: number, request: PlanRequest): Promise<PlanOutcome>;
+  applySettings(design: DesignDocument, drives: Drive[], settings: number[]): Promise<DesignDocument>;
   trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome>;
   cancel(): void;
 }
@@ -63,17 +79,6 @@ export const ANALYSIS = new InjectionToken<AnalysisClient>('Osmolane analyses in
   providedIn: 'root',
   factory: () => inject(SOLVER) as unknown as AnalysisClient,
 });
-
-/** The worker's live geometry checks, for the sketch. */
-export interface GeometryClient {
-  checkGeometry(design: DesignDocument): Promise<DesignProblem[]>;
-}
-
-/** The sketch's GEOMETRY_CHECKS in the app: the solver worker's (the SOLVER must be a WorkerSolverClient). */
-export function workerGeometryChecks(): GeometryChecks {
-  const solver = inject(SOLVER) as unknown as GeometryClient;
-  return (doc) => solver.checkGeometry(doc);
-}
 
 const CANCELLED_ERROR: SolveFailure = { code: 'cancelled', message: 'The solve was stopped.' };
 export const CANCELLED: SolveOutcome = { ok: false, error: CANCELLED_ERROR };
@@ -108,7 +113,7 @@ class WorkerHandle {
 class WorkerEnded extends Error {}
 
 /** The SolverClient (and AnalysisClient) over a real worker, started on first use and again after a cancel. */
-export class WorkerSolverClient implements SolverClient, AnalysisClient, GeometryClient {
+export class WorkerSolverClient implements SolverClient, AnalysisClient {
   private handle: WorkerHandle | null = null;
   private solving: WorkerHandle | null = null;
 
@@ -127,11 +132,6 @@ export class WorkerSolverClient implements SolverClient, AnalysisClient, Geometr
     return this.current().call((r) => r.measure(design));
   }
 
-  /** Not exclusive: waits behind a solve in flight rather than stopping it. */
-  checkGeometry(design: DesignDocument): Promise<DesignProblem[]> {
-    return this.current().call((r) => r.checkGeometry(design));
-  }
-
   solve(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: SolveProgress) => void): Promise<SolveOutcome> {
     return this.exclusive((r) => r.solve(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<SolveOutcome>);
   }
@@ -140,8 +140,21 @@ export class WorkerSolverClient implements SolverClient, AnalysisClient, Geometr
     return this.exclusive((r) => r.compare(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<CompareOutcome>);
   }
 
-  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<ResponsesOutcome> {
-    return this.exclusive((r) => r.unitResponses(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<ResponsesOutcome>);
+  unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<BasisOutcome> {
+    return this.exclusive((r) => r.unitResponses(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<BasisOutcome>);
+  }
+
+  /** Not exclusive (as are plan and applySettings): waits behind a call in flight rather than stopping it. */
+  recombine(basis: number, map: PlannerMap, settings: number[]): Promise<RecombineOutcome> {
+    return this.current().call((r) => r.recombine(basis, map, settings) as Promise<RecombineOutcome>);
+  }
+
+  plan(basis: number, request: PlanRequest): Promise<PlanOutcome> {
+    return this.current().call((r) => r.plan(basis, request) as Promise<PlanOutcome>);
+  }
+
+  applySettings(design: DesignDocument, drives: Drive[], settings: number[]): Promise<DesignDocument> {
+    return this.current().call((r) => r.applySettings(design, drives, settings) as Promise<DesignDocument>);
   }
 
   trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome> {

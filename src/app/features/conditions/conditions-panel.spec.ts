@@ -1,4 +1,6 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { of } from 'rxjs';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import { SketchCanvas } from '../sketch/sketch-canvas';
@@ -38,7 +40,7 @@ describe('ConditionsPanel', () => {
   let el: HTMLElement;
 
   async function create(doc: DesignDocument, readOnly = false): Promise<void> {
-    await TestBed.configureTestingModule({ imports: [ConditionsPanel], providers: [{ provide: CONDITIONS_LIBRARY, useValue: library }] }).compileComponents();
+    await TestBed.configureTestingModule({ imports: [ConditionsPanel], providers: [{ provide: CONDITIONS_LIBRARY, useValue: library }, { provide: INSTANT, useValue: instantComputations }] }).compileComponents();
     fixture = TestBed.createComponent(ConditionsPanel);
     fixture.componentRef.setInput('document', doc);
     fixture.componentRef.setInput('readOnly', readOnly);

@@ -18,7 +18,7 @@ import { QuantityPipe } from '../../ui/quantity-pipe';
 import { formatQuantity, parsePressureOrHead, pressureToHead, type Dimension } from '../../ui/units';
 import { SketchCanvas, type CanvasPointer } from '../sketch/sketch-canvas';
 import { shapeBounds, unionBounds } from '../sketch/shape-transform';
-import { fluidOutline } from '../sketch/sketch-path';
+import { fluidOutlineOf } from '../../core/instant-client';
 import { chamberFromCorners, type Vec } from '../sketch/tool-geometry';
 import { CONDITIONS_LIBRARY, type LibraryChoice } from './buffer-library';
 import {
@@ -154,7 +154,7 @@ export class ConditionsPanel {
   protected readonly zoneRows = signal<ZoneRow[]>([]);
 
   protected readonly hotPorts = computed(() => highVoltagePorts(this.doc()));
-  protected readonly outline = computed(() => fluidOutline(this.doc().shapes));
+  protected readonly outline = fluidOutlineOf(() => this.doc().shapes);
   protected readonly drawingZone = signal(false);
   private zoneStart: Vec | null = null;
   protected readonly zoneDraft = signal<Vec[] | null>(null);

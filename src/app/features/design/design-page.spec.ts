@@ -8,6 +8,8 @@ jest.mock('../tracer/tracer-tab', () => jest.requireActual('./testing/tab-stubs'
 jest.mock('../planner/planner-tab', () => jest.requireActual('./testing/tab-stubs'));
 jest.mock('../double-layer/double-layer-tab', () => jest.requireActual('./testing/tab-stubs'));
 import { provideHttpClient } from '@angular/common/http';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
@@ -39,7 +41,7 @@ describe('DesignPage', () => {
   async function open(over: Record<string, unknown> = {}, tab?: string, revisions: unknown[] = []) {
     await TestBed.configureTestingModule({
       imports: [DesignPage],
-      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: INSTANT, useValue: instantComputations }],
     }).compileComponents();
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(DesignPage);

@@ -1,4 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import cross from '../../../../tests/fixtures/designs/cross-injector.json';
 import { SOLVER } from '../../core/solver-client';
@@ -31,7 +33,7 @@ describe('DoubleLayerTab', () => {
 
   beforeEach(async () => {
     const measure = jest.fn(async () => ({ narrowest: 5e-5, bounds: [0, 0, 3e-3, 2e-3] as [number, number, number, number] }));
-    await TestBed.configureTestingModule({ imports: [DoubleLayerTab], providers: [{ provide: SOLVER, useValue: { measure } }] }).compileComponents();
+    await TestBed.configureTestingModule({ imports: [DoubleLayerTab], providers: [{ provide: SOLVER, useValue: { measure } }, { provide: INSTANT, useValue: instantComputations }] }).compileComponents();
     fixture = TestBed.createComponent(DoubleLayerTab);
     fixture.componentRef.setInput('document', design());
     fixture.detectChanges();

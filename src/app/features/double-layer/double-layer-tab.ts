@@ -12,7 +12,7 @@ import { SOLVER } from '../../core/solver-client';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { QuantityInput, blurOnEnter } from '../analysis/quantity-input';
 import { SeriesPlot } from '../analysis/series-plot';
-import { edlView, type DistanceAxis } from './double-layer-model';
+import { INSTANT, latestOf, type DistanceAxis, type EdlInputs } from '../../core/instant-client';
 
 /** Tangential field assumed for the slip velocity and vorticities unless the engineer types another. */
 const DEFAULT_FIELD = 1e4;
@@ -43,6 +43,7 @@ const DEFAULT_FIELD = 1e4;
 })
 export class DoubleLayerTab {
   private readonly solver = inject(SOLVER);
+  private readonly instant = inject(INSTANT);
 
   readonly document = input.required<DesignDocument>();
 
@@ -58,15 +59,16 @@ export class DoubleLayerTab {
   protected readonly measuring = signal(false);
 
   protected readonly buffer = computed(() => this.document().buffer);
-  protected readonly view = computed(() => {
+  /** What the profiles are drawn for; null while an input does not read as a number. */
+  private readonly inputs = computed<{ inputs: EdlInputs; axis: DistanceAxis } | null>(() => {
     const I = this.ionicStrength.value(), z = this.zeta.value(), T = this.temperature.value(), E = this.field.value();
     if (I === null || z === null || T === null || E === null) return null;
     const b = this.buffer();
-    return edlView(
-      { ionicStrength: I, zeta: z, temperature: T, field: E, relativePermittivity: b.relativePermittivity, viscosity: b.viscosity, depth: this.document().depth, width: this.narrowest() },
-      this.axis(),
-    );
+    const inputs = { ionicStrength: I, zeta: z, temperature: T, field: E, relativePermittivity: b.relativePermittivity, viscosity: b.viscosity, depth: this.document().depth, width: this.narrowest() };
+    return { inputs, axis: this.axis() };
   });
+  /** The profiles and report, computed in the instant worker; null while the inputs are incomplete. */
+  protected readonly view = latestOf(this.inputs, (q) => (q ? this.instant.doubleLayer(q.inputs, q.axis) : Promise.resolve(null)), null);
   protected readonly xTitle = computed(() => (this.axis() === 'nm' ? 'distance from the wall' : 'distance from the wall / λ_D'));
   protected readonly xDimension = computed(() => (this.axis() === 'nm' ? ('length' as const) : ('dimensionless' as const)));
   /** Whether the inputs differ from the design's buffer and side-wall zeta. */

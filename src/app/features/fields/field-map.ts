@@ -18,7 +18,7 @@ import { MatIconButton } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import * as d3 from 'd3';
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 import { formatLength, scaleBarLength } from '../../ui/layout-geometry';
 import { fieldImage } from './field-image';
 import type { ColourRange } from './field-maps';
@@ -167,18 +167,22 @@ export class FieldMap {
   private zoom: d3.ZoomBehavior<SVGSVGElement, unknown> | null = null;
 
   /** Layout bounds (m): the outline's, or the grid's less its one-cell margin. */
-  private readonly bounds = computed<[number, number, number, number]>(() => {
-    const rings = this.outline();
-    if (rings.length > 0) {
-      let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
-      for (const ring of rings) for (const [x, y] of ring) {
-        x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y);
+  private readonly bounds = computed<[number, number, number, number]>(
+    () => {
+      const rings = this.outline();
+      if (rings.length > 0) {
+        let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+        for (const ring of rings) for (const [x, y] of ring) {
+          x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y);
+        }
+        return [x0, y0, x1, y1];
       }
-      return [x0, y0, x1, y1];
-    }
-    const f = this.fields();
-    return [f.x0 + f.spacing, f.y0 + f.spacing, f.x0 + (f.nx - 1) * f.spacing, f.y0 + (f.ny - 1) * f.spacing];
-  });
+      const f = this.fields();
+      return [f.x0 + f.spacing, f.y0 + f.spacing, f.x0 + (f.nx - 1) * f.spacing, f.y0 + (f.ny - 1) * f.spacing];
+    },
+    // The same numbers again (a new outline of the same layout) keep the engineer's zoom.
+    { equal: (a, b) => a.every((v, k) => v === b[k]) },
+  );
 
   /** The view that fits the layout (zoom 1). */
   private readonly base = computed<View>(() => {
@@ -355,6 +359,11 @@ export class FieldMap {
       const zoom = d3
         .zoom<SVGSVGElement, unknown>()
         .scaleExtent([0.5, 400])
+        // The drawing's own size (the SVG's width and height): no layout query of the element.
+        .extent(() => {
+          const { w, h } = this.size();
+          return [[0, 0], [w, h]];
+        })
         .filter((event: Event & { button?: number; ctrlKey?: boolean }) => (event.type === 'wheel' || !this.cutMode()) && !event.button)
         .on('zoom', (event: d3.D3ZoomEvent<SVGSVGElement, unknown>) => this.zoomT.set(event.transform))
         .on('end', (event: d3.D3ZoomEvent<SVGSVGElement, unknown>) => {

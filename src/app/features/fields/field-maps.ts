@@ -4,7 +4,7 @@
  * it changes sign) use the diverging cool-warm map over a range symmetric about 0 (product.md, "Look").
  */
 import type { ColourMapName } from '../../../../shared/colour-maps';
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 import type { Dimension } from '../../ui/units';
 
 export const MAP_IDS = ['potential', 'fieldStrength', 'speed', 'vorticity', 'pressure', 'streamfunction'] as const;

@@ -3,7 +3,7 @@
  * cell's centre) that are defined, and an inside-the-fluid test by the outline when there is one, by the cell's
  * fluid fraction otherwise.
  */
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 
 export type Vec = readonly [number, number];
 

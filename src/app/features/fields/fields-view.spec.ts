@@ -1,4 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
@@ -69,7 +71,7 @@ describe('FieldsView', () => {
     solver = opts.solver ?? fakeSolver();
     await TestBed.configureTestingModule({
       imports: [FieldsView],
-      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: SOLVER, useValue: solver }],
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: SOLVER, useValue: solver }, { provide: INSTANT, useValue: instantComputations }],
     }).compileComponents();
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(FieldsView);

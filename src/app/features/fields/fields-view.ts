@@ -16,13 +16,13 @@ import type { DesignDocument } from '../../../../shared/design';
 import { ductError } from '../../../../shared/duct-model';
 import { HIGH_VOLTAGE_CAUTION, LIMITS } from '../../../../shared/physics';
 import { readFieldBlob, writeFieldBlob } from '../../../../shared/field-blob';
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 import { Api } from '../../core/api';
 import { errorMessage } from '../../core/error-message';
 import { SOLVER, type LayoutMeasure, type SolveProgress } from '../../core/solver-client';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { formatQuantity, parseQuantity } from '../../ui/units';
-import { fluidOutline } from '../sketch/sketch-path';
+import { fluidOutlineOf } from '../../core/instant-client';
 import { ColourBar } from './colour-bar';
 import { FieldMap, type CutLine, type MapMarker, type MapPort } from './field-map';
 import { CLIP_SHARE, MAPS, MAP_IDS, colourRange, mapValues, type MapId } from './field-maps';
@@ -189,7 +189,7 @@ export class FieldsView {
   protected readonly r0 = this.range;
   /** The solved document: the outline, port names and cautions belong to it (a run's may differ from the draft). */
   private readonly solvedDocument = computed(() => this.shown()?.document ?? this.document());
-  protected readonly outline = computed(() => fluidOutline(this.solvedDocument().shapes));
+  protected readonly outline = fluidOutlineOf(() => this.solvedDocument().shapes);
   protected readonly mapPorts = computed<MapPort[]>(() => this.solvedDocument().ports.map((p) => ({ id: p.id, from: p.from, to: p.to })));
   protected readonly markers = computed<MapMarker[]>(() =>
     this.warningRows()

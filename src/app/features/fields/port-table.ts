@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import type { PortResult } from '../../../../solver/result/types';
+import type { PortResult } from '../../../../shared/result';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { formatQuantity, type Dimension } from '../../ui/units';
 import { currentBalance, flowBalance } from './shown-solve';

@@ -8,7 +8,7 @@
  * forward and backward from its seed, stopping outside the fluid, where the flow stalls, near another line,
  * or after a number of steps.
  */
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 import { sampleAt } from './field-sampling';
 
 export interface StreamlineOptions {

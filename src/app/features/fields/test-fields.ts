@@ -1,4 +1,4 @@
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 
 /**
  * Fields for specs: an nx × ny grid of spacing h from (x0, y0), values from functions of the cell centre,

@@ -1,7 +1,6 @@
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
-import { superposeField, unitResponses } from '../../../../solver/planner';
 import cross from '../../../../tests/fixtures/designs/cross-injector.json';
-import { defaultPortPlans, defaultTargets, planRequest, plannedDesign, recombine, responsesKey, rowProblem, sliderRange, toTargets } from './planner-model';
+import { defaultPortPlans, defaultTargets, planRequest, plannedDesign, responsesKey, rowProblem, sliderRange, toTargets } from './planner-model';
 
 function design(): DesignDocument {
   const r = parseDesign(cross);
@@ -46,18 +45,6 @@ describe('planner model', () => {
     expect(responsesKey({ ...doc, name: 'other', ports: doc.ports.map((p) => ({ ...p, potential: 5 })) })).toBe(key);
     expect(responsesKey({ ...doc, depth: 3e-5 })).not.toBe(key);
     expect(responsesKey(plannedDesign(doc, defaultPortPlans(doc).map((p) => (p.id === 'S' ? { ...p, mode: 'float' } : p))))).not.toBe(key);
-  });
-
-  it('recombines |u| in one pass per drive, equal to the magnitude of the superposed components', () => {
-    const responses = unitResponses(doc, { cells: 50 });
-    const s = [0, 850, 240, 520];
-    const n = responses.results[0].fields.velocityX.length;
-    const speed = recombine(responses, 'speed', s, new Float32Array(n), new Float32Array(n));
-    const u = superposeField(responses, 'velocityX', s), v = superposeField(responses, 'velocityY', s);
-    for (let c = 0; c < n; c++) {
-      if (Number.isNaN(u[c])) expect(Number.isNaN(speed[c])).toBe(true);
-      else expect(speed[c]).toBeCloseTo(Math.hypot(u[c], v[c]), 9);
-    }
   });
 
   it('gives sliders a round range around the setting, or the bounds', () => {

@@ -1,13 +1,11 @@
 /**
  * The Planner tab's pure pieces: targets as the engineer states them (flow or speed through a port and its
  * direction, zero flow in a leg, a pinch ratio, a current), ports planned, held or floating, bounds, the plan
- * request for solver/planner, and the instant recombination of a map from the unit responses (no solve).
+ * request for solver/planner (run in the solver worker).
  */
 import type { DesignDocument } from '../../../../shared/design';
-import { superposeField, type Drive, type PlanRequest, type Target, type UnitResponses } from '../../../../solver/planner';
+import type { Drive, PlanRequest, Target } from '../../core/solver-client';
 import type { Dimension } from '../../ui/units';
-
-const { sqrt } = Math;
 
 export type TargetKind = 'flow' | 'speed' | 'zero' | 'ratio' | 'current';
 
@@ -110,32 +108,6 @@ export function planRequest(rows: ReadonlyArray<TargetRow>, ports: ReadonlyArray
     .filter((p) => p.mode === 'plan' && (p.min !== null || p.max !== null))
     .map((p) => ({ port: p.id, kind: 'potential' as const, min: p.min ?? undefined, max: p.max ?? undefined }));
   return { targets: toTargets(rows), hold, bounds };
-}
-
-export type PlannerMap = 'speed' | 'potential' | 'vorticity';
-
-/**
- * A map for drive strengths s from the unit responses, written into `out`: the slider's step. Speed is
- * recombined from both velocity components in one pass per drive, then |u| in place.
- */
-export function recombine(responses: UnitResponses, map: PlannerMap, s: ArrayLike<number>, out: Float32Array, scratch: Float32Array): Float32Array {
-  if (map !== 'speed') return superposeField(responses, map, s, out);
-  const results = responses.results;
-  const n = out.length;
-  out.fill(0);
-  scratch.fill(0);
-  for (let k = 0; k < results.length; k++) {
-    const w = s[k];
-    if (w === 0) continue;
-    const vx = results[k].fields.velocityX, vy = results[k].fields.velocityY;
-    for (let c = 0; c < n; c++) {
-      out[c] += w * vx[c];
-      scratch[c] += w * vy[c];
-    }
-  }
-  const first = results[0].fields.velocityX;
-  for (let c = 0; c < n; c++) out[c] = first[c] !== first[c] ? NaN : sqrt(out[c] * out[c] + scratch[c] * scratch[c]);
-  return out;
 }
 
 /** Slider range for a planned potential: its bounds when set, else symmetric and wide enough for the setting. */

@@ -1,8 +1,12 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import cross from '../../../../tests/fixtures/designs/cross-injector.json';
 import { ANALYSIS, type AnalysisClient } from '../../core/solver-client';
 import { responsesOutcome } from '../../../workers/worker-analysis';
+import { PlannerStore, type PlannerMap } from '../../../workers/worker-planner';
+import { withSettings, type Drive, type PlanRequest } from '../../../../solver/planner';
 import { PlannerTab } from './planner-tab';
 
 function design(): DesignDocument {
@@ -28,16 +32,22 @@ describe('PlannerTab', () => {
     jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null);
     calls = [];
     emitted = [];
+    // The worker's own pieces, in-process: unit responses kept in a PlannerStore, recombined and planned there.
+    const store = new PlannerStore();
     const analysis = {
       unitResponses: async (doc: unknown) => {
         calls.push(doc);
-        return responsesOutcome(doc, { cells: 60 });
+        const outcome = responsesOutcome(doc, { cells: 60 });
+        return outcome.ok ? { ok: true, workerMs: outcome.workerMs, basis: store.keep(outcome.responses) } : outcome;
       },
+      recombine: async (id: number, map: PlannerMap, settings: number[]) => store.recombine(id, map, settings),
+      plan: async (id: number, request: PlanRequest) => store.plan(id, request),
+      applySettings: async (doc: DesignDocument, drives: Drive[], settings: number[]) => withSettings(doc, drives, settings),
       compare: jest.fn(),
       trace: jest.fn(),
       cancel: jest.fn(),
     } as unknown as AnalysisClient;
-    await TestBed.configureTestingModule({ imports: [PlannerTab], providers: [{ provide: ANALYSIS, useValue: analysis }] }).compileComponents();
+    await TestBed.configureTestingModule({ imports: [PlannerTab], providers: [{ provide: ANALYSIS, useValue: analysis }, { provide: INSTANT, useValue: instantComputations }] }).compileComponents();
     fixture = TestBed.createComponent(PlannerTab);
     fixture.componentRef.setInput('document', design());
     fixture.componentInstance.documentChange.subscribe((d) => emitted.push(d));
@@ -61,6 +71,7 @@ describe('PlannerTab', () => {
     // Out of B: negative flow rate into the chip.
     expect(Number(el.querySelector('[data-testid=planner-live-B]')!.getAttribute('data-flow'))).toBeLessThan(0);
     (el.querySelector('[data-testid=planner-apply]') as HTMLButtonElement).click();
+    await settle();
     expect(emitted).toHaveLength(1);
     expect(emitted[0].ports.find((p) => p.id === 'B')!.potential).toBe(0);
     const W = Number(el.querySelector('[data-testid=planner-slider-W] .value')!.getAttribute('data-value'));

@@ -10,33 +10,31 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSliderModule } from '@angular/material/slider';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { DesignDocument } from '../../../../shared/design';
-import { planSettings, settingsOf, superposePorts, withSettings, type PlanResult, type UnitResponses } from '../../../../solver/planner';
-import { ANALYSIS, type AnalysisProgress } from '../../core/solver-client';
+import { latestOf } from '../../core/instant-client';
+import { ANALYSIS, type AnalysisProgress, type PlannerBasis, type PlannerMap, type PlanResult } from '../../core/solver-client';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { ColourBar } from '../fields/colour-bar';
 import { FieldMap, type MapPort } from '../fields/field-map';
 import { MAPS, colourRange } from '../fields/field-maps';
-import { fluidOutline } from '../sketch/sketch-path';
+import { fluidOutlineOf } from '../../core/instant-client';
 import { PlannerForm } from './planner-form';
 import {
   defaultPortPlans,
   defaultTargets,
   planRequest,
   plannedDesign,
-  recombine,
   responsesKey,
   rowProblem,
   sliderRange,
-  type PlannerMap,
   type PortPlan,
   type TargetRow,
 } from './planner-model';
 
 /**
- * The Planner tab (product.md, capability 7): unit responses per electrode computed once in the worker, then
- * reservoir potentials for the engineer's targets by bounded least squares on the main thread, each target's
- * residual, and sliders that recombine the map from the unit responses at once (no solve). "Apply to
- * conditions" writes the potentials into the design.
+ * The Planner tab (product.md, capability 7): unit responses per electrode computed once in the solver worker and
+ * kept there, then reservoir potentials for the engineer's targets by bounded least squares, each target's
+ * residual, and sliders that recombine the map from the unit responses at once (no solve; the worker answers
+ * within a frame). "Apply to conditions" writes the potentials into the design.
  */
 @Component({
   selector: 'osm-planner-tab',
@@ -69,7 +67,7 @@ export class PlannerTab {
 
   protected readonly targets = signal<TargetRow[]>([]);
   protected readonly portPlans = signal<PortPlan[]>([]);
-  protected readonly responses = signal<{ key: string; responses: UnitResponses; pageMs: number } | null>(null);
+  protected readonly responses = signal<{ key: string; basis: PlannerBasis; pageMs: number } | null>(null);
   protected readonly computing = signal(false);
   protected readonly progress = signal<AnalysisProgress | null>(null);
   protected readonly error = signal<string | null>(null);
@@ -77,7 +75,6 @@ export class PlannerTab {
   /** Strength of each drive (responses' order): the plan's, then wherever the sliders put them. */
   protected readonly settings = signal<number[] | null>(null);
   protected readonly mapId = signal<PlannerMap>('speed');
-  protected readonly slideMs = signal<number | null>(null);
   /** Bumped when the colour range should follow the values again (not on every slider step). */
   private readonly rangeVersion = signal(0);
   protected readonly mapHeight = 330;
@@ -86,39 +83,50 @@ export class PlannerTab {
   protected readonly key = computed(() => responsesKey(this.planned()));
   protected readonly ready = computed(() => {
     const r = this.responses();
-    return r && r.key === this.key() ? r.responses : null;
+    return r && r.key === this.key() ? r.basis : null;
   });
   protected readonly spec = computed(() => MAPS[this.mapId()]);
-  protected readonly outline = computed(() => fluidOutline(this.document().shapes));
+  protected readonly outline = fluidOutlineOf(() => this.document().shapes);
   protected readonly mapPorts = computed<MapPort[]>(() => this.document().ports.map((p) => ({ id: p.id, from: p.from, to: p.to })));
   protected readonly rowProblems = computed(() => this.targets().map(rowProblem));
   protected readonly canPlan = computed(() => !!this.ready() && this.targets().length > 0 && this.rowProblems().every((p) => p === null));
 
-  /** Two buffers used in turn, so that each slider step hands the map a new array. */
-  private buffers: [Float32Array, Float32Array, Float32Array] | null = null;
-  private flip = 0;
+  /** The map and port table at the current settings, recombined in the worker (the newest settings win). */
+  private readonly live = latestOf(
+    () => {
+      const b = this.ready(), s = this.settings();
+      return b && s ? { basis: b.id, map: this.mapId(), settings: s, rangeVersion: this.rangeVersion() } : null;
+    },
+    async (q) => {
+      if (!q) return null;
+      const started = performance.now();
+      const outcome = await this.analysis.recombine(q.basis, q.map, q.settings);
+      return { ...q, outcome, pageMs: performance.now() - started };
+    },
+    null,
+  );
   protected readonly values = computed(() => {
-    const r = this.ready(), s = this.settings();
-    if (!r || !s) return null;
-    const n = r.results[0].fields.potential.length;
-    if (!this.buffers || this.buffers[0].length !== n) this.buffers = [new Float32Array(n), new Float32Array(n), new Float32Array(n)];
-    this.flip = 1 - this.flip;
-    const started = performance.now();
-    const out = recombine(r, this.mapId(), s, this.buffers[this.flip], this.buffers[2]);
-    untracked(() => this.slideMs.set(performance.now() - started));
-    return out;
+    const l = this.live();
+    return l?.outcome.ok && l.basis === this.ready()?.id && l.map === this.mapId() ? l.outcome.values : null;
   });
+  /** Round trip of the last slider step (page to worker and back), and the worker's share of it. */
+  protected readonly slideMs = computed(() => {
+    const l = this.live();
+    return l?.outcome.ok ? { page: l.pageMs, worker: l.outcome.workerMs } : null;
+  });
+  /** The colour range: set again when the map, the basis or the range version changes, not on every slider step. */
+  private rangeShown: { key: string; range: ReturnType<typeof colourRange> } | null = null;
   protected readonly range = computed(() => {
-    this.rangeVersion();
-    this.mapId();
-    this.ready();
-    const v = untracked(() => this.values());
-    return v ? colourRange(v, this.spec()) : null;
+    const v = this.values(), l = this.live();
+    if (!v || !l) return null;
+    const key = `${l.basis}|${l.map}|${l.rangeVersion}`;
+    if (this.rangeShown?.key !== key) this.rangeShown = { key, range: colourRange(v, this.spec()) };
+    return this.rangeShown.range;
   });
   /** Ports' potential, current and flow rate at the current settings (superposed, instant). */
   protected readonly livePorts = computed(() => {
-    const r = this.ready(), s = this.settings();
-    return r && s ? superposePorts(r, s) : [];
+    const l = this.live();
+    return l?.outcome.ok && l.basis === this.ready()?.id ? l.outcome.ports : [];
   });
   /** One slider per electrode (planned or held). */
   protected readonly sliders = computed(() => {
@@ -133,7 +141,7 @@ export class PlannerTab {
         return { port: d.port, index: k, value: s[k], held: plan.mode === 'hold', ...sliderRange(this.plan()?.settings[k] ?? s[k], plan) };
       });
   });
-  protected readonly fields = computed(() => this.ready()?.results[0].fields ?? null);
+  protected readonly fields = computed(() => this.ready()?.fields ?? null);
 
   constructor() {
     // Targets and port roles start from the design (again when its ports change).
@@ -162,9 +170,14 @@ export class PlannerTab {
       const r = this.ready();
       untracked(() => {
         this.plan.set(null);
-        this.settings.set(r ? settingsOf(this.planned(), r.drives) : null);
+        this.settings.set(r ? r.settings : null);
         this.rangeVersion.update((v) => v + 1);
       });
+    });
+    // A worker that restarted (another analysis stopped it) has lost the responses: compute them again.
+    effect(() => {
+      const l = this.live();
+      if (l && !l.outcome.ok && l.outcome.error.code === 'stale-basis') untracked(() => this.responses.set(null));
     });
     inject(DestroyRef).onDestroy(() => {
       clearTimeout(timer);
@@ -189,25 +202,27 @@ export class PlannerTab {
       return;
     }
     // The worker adds a drive for each head that is not zero; the plan holds those heads as they are.
-    this.responses.set({ key, responses: outcome.responses, pageMs: performance.now() - started });
+    this.responses.set({ key, basis: outcome.basis, pageMs: performance.now() - started });
   }
 
   protected recompute(): void {
     this.responses.set(null);
   }
 
-  protected runPlan(): void {
+  protected async runPlan(): Promise<void> {
     const r = this.ready();
     if (!r || !this.canPlan()) return;
-    try {
-      const result = planSettings(r, planRequest(this.targets(), this.portPlans(), this.planned(), r.drives));
-      this.plan.set(result);
-      this.settings.set(result.settings);
-      this.error.set(null);
-      this.rangeVersion.update((v) => v + 1);
-    } catch (error) {
-      this.error.set(error instanceof Error ? error.message : String(error));
+    const outcome = await this.analysis.plan(r.id, planRequest(this.targets(), this.portPlans(), this.planned(), r.drives));
+    if (this.ready() !== r) return;
+    if (!outcome.ok) {
+      if (outcome.error.code === 'stale-basis') this.responses.set(null);
+      this.error.set(outcome.error.message);
+      return;
     }
+    this.plan.set(outcome.plan);
+    this.settings.set(outcome.plan.settings);
+    this.error.set(null);
+    this.rangeVersion.update((v) => v + 1);
   }
 
   protected slide(index: number, event: Event): void {
@@ -224,10 +239,10 @@ export class PlannerTab {
     this.mapId.set(map);
   }
 
-  protected apply(): void {
+  protected async apply(): Promise<void> {
     const r = this.ready(), s = this.settings();
     if (!r || !s || this.readOnly()) return;
-    this.documentChange.emit(withSettings(this.planned(), r.drives, s));
+    this.documentChange.emit(await this.analysis.applySettings(this.planned(), r.drives, s));
   }
 
   protected residualShare(t: PlanResult['targets'][number]): number | null {

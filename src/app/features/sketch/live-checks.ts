@@ -8,8 +8,8 @@ export const NO_GEOMETRY_CHECKS: GeometryChecks = () => [];
 
 /**
  * How the sketch runs its live checks (empty layout, self-crossing outlines, slivers, ports off the outline or
- * overlapping, fluid that touches no port, nothing that drives). The app provides the solver worker's
- * (core/solver-client.ts, `workerGeometryChecks`); the sketch asks a moment after the last change and shows the answer
+ * overlapping, fluid that touches no port, nothing that drives). The app provides the instant worker's
+ * (app.config.ts); the sketch asks a moment after the last change and shows the answer
  * when it comes, if the drawing has not changed meanwhile. The default checks nothing: the solver stays off the
  * main thread.
  */

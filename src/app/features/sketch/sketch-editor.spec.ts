@@ -1,4 +1,6 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { MatTooltip } from '@angular/material/tooltip';
 import { By } from '@angular/platform-browser';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
@@ -35,7 +37,7 @@ describe('SketchEditor', () => {
     // The worker's checks, run here in place of the worker (async, as the worker answers).
     await TestBed.configureTestingModule({
       imports: [SketchEditor],
-      providers: [{ provide: GEOMETRY_CHECKS, useValue: async (doc: DesignDocument) => liveProblems(doc) }],
+      providers: [{ provide: GEOMETRY_CHECKS, useValue: async (doc: DesignDocument) => liveProblems(doc) }, { provide: INSTANT, useValue: instantComputations }],
     }).compileComponents();
     fixture = TestBed.createComponent(SketchEditor);
     fixture.componentRef.setInput('document', doc);

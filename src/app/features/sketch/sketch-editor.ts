@@ -14,7 +14,7 @@ import { GEOMETRY_CHECKS } from './live-checks';
 import { nextPortId, portSegmentNear, sameSegment } from './port-placement';
 import { ShapeInspector } from './shape-inspector';
 import { portsOnShape, rotatePort, rotateShape, shapeBounds, shapePivot, translatePort, translateShape, wrapAngle } from './shape-transform';
-import { fluidOutline } from './sketch-path';
+import { fluidOutlineOf } from '../../core/instant-client';
 import { SketchCanvas, type CanvasPointer, type DragMode, type Selection, type SketchPreview } from './sketch-canvas';
 import { TOOLS, toolByKey, type ToolId } from './sketch-tools';
 import { snapAngle } from './snap';
@@ -101,7 +101,7 @@ export class SketchEditor {
 
   /** What the drawing shows: the drag in progress, or the document. */
   protected readonly shown = computed(() => this.draft() ?? this.doc());
-  protected readonly outline = computed<Vec[][]>(() => fluidOutline(this.shown().shapes));
+  protected readonly outline = fluidOutlineOf(() => this.shown().shapes);
   protected readonly problems = signal<DesignProblem[]>([]);
   protected readonly errorCount = computed(() => this.problems().filter((p) => p.severity === 'error').length);
 

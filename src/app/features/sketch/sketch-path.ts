@@ -3,7 +3,6 @@
  * point-in-outline test used to put labels on the open side of a port.
  */
 import type { Region, Shape } from '../../../../shared/design';
-import { fluidRegion } from '../../../../solver/geometry/fluid-region';
 import { rectCorners } from './shape-transform';
 import { cosSin, type Vec } from './tool-geometry';
 
@@ -50,18 +49,6 @@ export function shapePath(shape: Region | Shape): string {
       d += ri > 0 ? `${line(at(ri, a1))}${arc(ri, sweep, false, at(ri, a0))}` : line([c[0], c[1]]);
       return `${d}Z`;
     }
-  }
-}
-
-/** Arc tolerance for drawn outlines (relative to the radius): invisible on screen, far cheaper than the solver's. */
-const DRAWING_ARC_TOLERANCE = 1e-3;
-
-/** The outline of the fluid (the solver's boolean operations on the shapes) as rings in metres; none if it fails. */
-export function fluidOutline(shapes: ReadonlyArray<Shape>): Vec[][] {
-  try {
-    return fluidRegion(shapes, DRAWING_ARC_TOLERANCE).polygons.flat();
-  } catch {
-    return [];
   }
 }
 

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, afterNextRender, afterRenderEffect, computed, inject, input, output, signal, viewChild } from '@angular/core';
-import type { SolveFields } from '../../../../solver/result/types';
+import type { SolveFields } from '../../../../shared/result';
 import { fieldImage } from '../fields/field-image';
 import type { ColourRange } from '../fields/field-maps';
 import type { MapPort } from '../fields/field-map';

@@ -1,6 +1,6 @@
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import cross from '../../../../tests/fixtures/designs/cross-injector.json';
-import { fluidOutline } from '../sketch/sketch-path';
+import { instantComputations } from '../../../workers/instant';
 import { acrossPort, arrivalHistogram, defaultBand, phaseAt, rectangle, traceRequest, type TraceForm } from './tracer-model';
 
 function design(): DesignDocument {
@@ -11,7 +11,10 @@ function design(): DesignDocument {
 
 describe('tracer model', () => {
   const doc = design();
-  const rings = fluidOutline(doc.shapes);
+  let rings: Awaited<ReturnType<typeof instantComputations.outline>> = [];
+  beforeAll(async () => {
+    rings = await instantComputations.outline(doc.shapes);
+  });
 
   it('draws a segment across the channel at a port, inside the fluid', () => {
     // W is the right end of the horizontal channel (x = 3 mm, y 0.975 to 1.025 mm): three widths in, to the left.

@@ -4,7 +4,7 @@
  * the phase shown at a frame's time, and the arrival-time histogram.
  */
 import type { DesignDocument, Port } from '../../../../shared/design';
-import type { Injection, PhaseSpec, TraceFrame, TraceResult } from '../../../../solver/tracer';
+import type { Injection, PhaseSpec, TraceFrame, TraceResult } from '../../../workers/solver-api';
 import type { WorkerTraceRequest } from '../../core/solver-client';
 import { insideRings, type Vec } from '../fields/field-sampling';
 

@@ -1,4 +1,6 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { INSTANT } from '../../core/instant-client';
+import { instantComputations } from '../../../workers/instant';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import cross from '../../../../tests/fixtures/designs/cross-injector.json';
 import { ANALYSIS, type AnalysisClient, type WorkerTraceRequest } from '../../core/solver-client';
@@ -38,7 +40,7 @@ describe('TracerTab', () => {
       unitResponses: jest.fn(),
       cancel: jest.fn(),
     } as unknown as AnalysisClient;
-    await TestBed.configureTestingModule({ imports: [TracerTab], providers: [{ provide: ANALYSIS, useValue: analysis }] }).compileComponents();
+    await TestBed.configureTestingModule({ imports: [TracerTab], providers: [{ provide: ANALYSIS, useValue: analysis }, { provide: INSTANT, useValue: instantComputations }] }).compileComponents();
     fixture = TestBed.createComponent(TracerTab);
     fixture.componentRef.setInput('document', design());
     fixture.detectChanges();

@@ -12,7 +12,7 @@ import { MatSliderModule } from '@angular/material/slider';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { DesignDocument } from '../../../../shared/design';
 import { guessCrossRoles, type CrossRoles } from '../../../../shared/cross-roles';
-import { pinchedPlug, type PhaseSpec, type TraceRun } from '../../../../solver/tracer';
+import type { PhaseSpec, TraceRun } from '../../../workers/solver-api';
 import { ANALYSIS, type AnalysisProgress } from '../../core/solver-client';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { formatQuantity, parseQuantity } from '../../ui/units';
@@ -22,7 +22,7 @@ import { ColourBar } from '../fields/colour-bar';
 import type { MapPort } from '../fields/field-map';
 import { MAPS, colourRange, magnitude } from '../fields/field-maps';
 import type { Vec } from '../fields/field-sampling';
-import { fluidOutline } from '../sketch/sketch-path';
+import { INSTANT, fluidOutlineOf } from '../../core/instant-client';
 import { ArrivalPlot } from './arrival-plot';
 import { TracerMap, type DrawMode } from './tracer-map';
 import { aliveCount, arrivalHistogram, defaultBand, phaseAt, rectangle, spreadSeries, traceRequest, type InjectionMode, type Segment } from './tracer-model';
@@ -62,6 +62,9 @@ const FRAME_MS = 70;
 })
 export class TracerTab {
   private readonly analysis = inject(ANALYSIS);
+  private readonly instant = inject(INSTANT);
+  /** Counts preset requests: an answer to an older one is dropped. */
+  private presetAsked = 0;
 
   readonly document = input.required<DesignDocument>();
 
@@ -93,7 +96,7 @@ export class TracerTab {
   protected readonly zoomed = signal(false);
   protected readonly mapHeight = 340;
 
-  protected readonly outline = computed(() => fluidOutline(this.document().shapes));
+  protected readonly outline = fluidOutlineOf(() => this.document().shapes);
   protected readonly mapPorts = computed<MapPort[]>(() => this.document().ports.map((p) => ({ id: p.id, from: p.from, to: p.to })));
   protected readonly roleNames = ['sample', 'sampleWaste', 'buffer', 'waste'] as const;
   protected readonly roleLabels: Record<(typeof this.roleNames)[number], string> = { sample: 'Sample', sampleWaste: 'Sample waste', buffer: 'Buffer', waste: 'Waste' };
@@ -190,19 +193,20 @@ export class TracerTab {
   });
 
   constructor() {
-    // A band to start from, and the pinched-plug roles, for each layout.
+    // A band to start from, and the pinched-plug roles, for each layout (once its outline has come from the worker).
     let shown: unknown = null;
     effect(() => {
-      const doc = this.document();
-      if (doc.shapes === shown) return;
-      shown = doc.shapes;
+      const rings = this.outline();
+      if (rings === shown || rings.length === 0) return;
+      shown = rings;
       untracked(() => {
-        const band = defaultBand(doc, this.outline());
+        const doc = this.document();
+        const band = defaultBand(doc, rings);
         this.line.set(band?.injection ?? null);
         this.detector.set(band?.detector ?? null);
         this.region.set(null);
         this.roles.set(guessCrossRoles(doc));
-        if (this.mode() === 'pinched') this.applyPreset();
+        if (this.mode() === 'pinched') void this.applyPreset();
       });
     });
     const destroyRef = inject(DestroyRef);
@@ -235,26 +239,23 @@ export class TracerTab {
   protected setMode(mode: InjectionMode): void {
     this.mode.set(mode);
     this.drawMode.set(null);
-    if (mode === 'pinched') this.applyPreset();
+    if (mode === 'pinched') void this.applyPreset();
     else if (!this.detector()) this.detector.set(defaultBand(this.document(), this.outline())?.detector ?? null);
   }
 
-  /** The pinched-plug preset for the chosen roles: injection region, detector, loading and dispensing potentials. */
-  protected applyPreset(): void {
+  /** The pinched-plug preset for the chosen roles (from the instant worker): injection region, detector, potentials. */
+  protected async applyPreset(): Promise<void> {
     const roles = this.roles();
+    const asked = ++this.presetAsked;
     this.presetError.set(null);
-    if (!roles) {
-      this.phases.set([]);
-      this.pinchedRegion.set(null);
-      return;
-    }
-    try {
-      const preset = pinchedPlug(this.document(), roles, { speciesMobility: this.mobility.value() ?? 0 });
-      this.phases.set(preset.phases);
-      this.pinchedRegion.set(preset.injection.polygon);
-      this.detector.set(preset.detector);
-    } catch (error) {
-      this.presetError.set(error instanceof Error ? error.message : String(error));
+    const outcome = roles ? await this.instant.pinchedPlug(this.document(), roles, this.mobility.value() ?? 0) : null;
+    if (asked !== this.presetAsked) return;
+    if (outcome?.ok) {
+      this.phases.set(outcome.preset.phases);
+      this.pinchedRegion.set(outcome.preset.injection.polygon);
+      this.detector.set(outcome.preset.detector);
+    } else {
+      if (outcome) this.presetError.set(outcome.message);
       this.phases.set([]);
       this.pinchedRegion.set(null);
     }
@@ -263,7 +264,7 @@ export class TracerTab {
   protected setRole(role: keyof CrossRoles, port: string): void {
     const r = this.roles() ?? { sample: '', sampleWaste: '', buffer: '', waste: '' };
     this.roles.set({ ...r, [role]: port });
-    this.applyPreset();
+    void this.applyPreset();
   }
 
   protected phasePotential(phase: PhaseSpec, port: string): string {

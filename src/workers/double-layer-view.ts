@@ -1,11 +1,11 @@
 /**
- * What the Double layer tab shows for a buffer and a wall: the report of solver/double-layer (Debye length,
- * Gouy–Chapman and Debye–Hückel profiles, velocity and vorticity across the EDL, finite-EDL corrections, the
- * thin-EDL verdict), the plot series in nanometres or in Debye lengths, and a check of the closed-form potential
- * against the numerical Poisson–Boltzmann solution.
+ * What the Double layer tab shows for a buffer and a wall, computed in the instant worker: the report of
+ * solver/double-layer (Debye length, Gouy–Chapman and Debye–Hückel profiles, velocity and vorticity across the
+ * EDL, finite-EDL corrections, the thin-EDL verdict), the plot series in nanometres or in Debye lengths, and a
+ * check of the closed-form potential against the numerical Poisson–Boltzmann solution.
  */
-import { doubleLayer, solvePoissonBoltzmann, gouyChapmanPotential, type DoubleLayerReport } from '../../../../solver/double-layer';
-import type { PlotSeries } from '../analysis/series-plot';
+import { doubleLayer, solvePoissonBoltzmann, gouyChapmanPotential, type DoubleLayerReport } from '../../solver/double-layer';
+import type { PlotSeries } from '../app/features/analysis/series-plot';
 
 export interface EdlInputs {
   ionicStrength: number;
