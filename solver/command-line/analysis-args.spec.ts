@@ -17,6 +17,9 @@ describe('compare, trace, plan and edl arguments', () => {
     fails(['compare', '--port', 'W'], /no design file given for compare/);
     fails(['compare', 'd.json', '--port', 'W', '--bogus'], /unknown option "--bogus".*osmolane compare/);
     fails(['compare', 'd.json', '--port', 'W', '--diffusivity', '-1'], /--diffusivity must be a positive number/);
+    expect(parseArgs(['compare', 'd.json', '--port', 'W', '--particles', '500', '--seed=3'])).toEqual({ command: 'compare', file: 'd.json', port: 'W', particles: 500, seed: 3, json: false });
+    expect(parseArgs(['compare', 'd.json', '--port', 'W', '--particles', '0'])).toMatchObject({ particles: 0 });
+    fails(['compare', 'd.json', '--port', 'W', '--particles', '1.5'], /--particles/);
   });
 
   it('reads trace with a line, a region, phases and the pinched preset', () => {

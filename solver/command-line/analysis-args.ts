@@ -11,6 +11,9 @@ export interface CompareCommand {
   port: string;
   cells?: number;
   diffusivity?: number;
+  /** Particles in the band each drive is traced with (0: no band) and the seed of its random walk. */
+  particles?: number;
+  seed?: number;
   json: boolean;
 }
 
@@ -158,6 +161,8 @@ function parseCompare(rest: ReadonlyArray<string>): CompareCommand {
   const positional = walk(rest, (flag, value, inline) => {
     if (flag === '--port') out.port = value();
     else if (flag === '--diffusivity') out.diffusivity = positive('--diffusivity', value(), 'm²/s of the reference species');
+    else if (flag === '--particles') out.particles = whole('--particles', value(), 0);
+    else if (flag === '--seed') out.seed = whole('--seed', value(), 0);
     else return common(out, flag, value, inline);
     return true;
   });

@@ -1,5 +1,5 @@
 /**
- * The analysis commands end to end: two spawns only, as tsx takes a while to start. Argument mistakes are
+ * The analysis commands end to end: three spawns only, as tsx takes a while to start. Argument mistakes are
  * covered by analysis-args.spec.ts; the results themselves by tests/verification.
  */
 import { spawnSync } from 'node:child_process';
@@ -13,7 +13,7 @@ const run = (args: string[]) =>
     timeout: 120000,
   });
 
-describe('osmolane edl and plan', () => {
+describe('osmolane edl, plan and compare', () => {
   it('edl --json prints the Debye length of 10 mM at 25 °C, 3.04 nm (Israelachvili; reference-values.md §2), and nothing else', () => {
     const out = run(['edl', '--ionic-strength', '10', '--zeta', '-0.05', '--temperature', '298.15', '--depth', '2e-5', '--width', '5e-5', '--json']);
     expect(out.stderr).toBe('');
@@ -36,5 +36,21 @@ describe('osmolane edl and plan', () => {
     expect(r.targets[0]).toMatchObject({ kind: 'speed', port: 'W', wanted: -1e-3 });
     expect(Math.abs(r.targets[0].residual)).toBeLessThan(1e-9);
     expect(Object.keys(r).sort()).toEqual(['drives', 'floating', 'grid', 'ports', 'settings', 'targets']);
+  });
+
+  it('compare --json gives each drive its band from the tracer, small enough to read', () => {
+    const out = run(['compare', 'tests/fixtures/designs/cross-injector.json', '--port', 'W', '--cells', '80', '--particles', '300', '--seed', '4', '--json']);
+    expect(out.stderr).toBe('');
+    expect(out.status).toBe(0);
+    const r = JSON.parse(out.stdout);
+    expect(r.band).toMatchObject({ particles: 300, seed: 4, mobility: 0, diffusivity: 1e-9 });
+    for (const side of [r.slip, r.pressure]) {
+      expect(Object.keys(side.band).sort()).toEqual(
+        ['arrived', 'counts', 'duration', 'effectiveDiffusivity', 'meanTime', 'plateHeight', 'plateNumber', 'speed', 'tilt', 'timeVariance'],
+      );
+      expect(side.band.counts).toHaveLength(r.band.edges.length - 1);
+    }
+    expect(r.pressure.band.plateHeight).toBeGreaterThan(r.slip.band.plateHeight);
+    expect(JSON.stringify(r).length).toBeLessThan(8000);
   });
 });

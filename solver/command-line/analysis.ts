@@ -29,7 +29,7 @@ const perSecond = (v: number) => `${Number(v.toPrecision(4))} 1/s`;
 const portJson = (p: PortResult) => ({ id: p.id, potential: p.potential, current: p.current, flowRate: p.flowRate });
 
 export function runCompare(design: DesignDocument, c: CompareCommand): AnalysisOutput {
-  const cmp = compareDrives(design, c.port, { cells: c.cells, referenceDiffusivity: c.diffusivity });
+  const cmp = compareDrives(design, c.port, { cells: c.cells, referenceDiffusivity: c.diffusivity, particles: c.particles, seed: c.seed });
   const side = (s: ComparisonSide) => ({
     flowRate: s.flowRate,
     maxSpeed: s.result.metrics.maxSpeed,
@@ -37,6 +37,8 @@ export function runCompare(design: DesignDocument, c: CompareCommand): AnalysisO
     meanVorticity: s.meanVorticity,
     wallShear: s.wallShear,
     dispersionRatio: s.dispersionRatio,
+    // The tracer's band (small: figures and a histogram on band.edges).
+    band: s.band,
     ports: s.result.ports.map(portJson),
     warnings: s.result.warnings.map((w) => w.code),
   });
@@ -46,18 +48,35 @@ export function runCompare(design: DesignDocument, c: CompareCommand): AnalysisO
     pressurePerVolt: cmp.pressurePerVolt,
     pressures: cmp.pressures,
     referenceDiffusivity: cmp.referenceDiffusivity,
+    band: cmp.band,
+    bandProblem: cmp.bandProblem,
     grid: cmp.slip.result.grid,
     slip: side(cmp.slip),
     pressure: side(cmp.pressure),
   };
   const row = (name: string, s: ComparisonSide) =>
     `  ${name.padEnd(9)} ${formatFlow(s.flowRate).padEnd(14)} ${formatSI(s.result.metrics.maxSpeed, 'm/s').padEnd(12)} ${perSecond(s.meanVorticity).padEnd(11)} ${perSecond(s.wallShear).padEnd(11)} ${s.dispersionRatio.toPrecision(4)}`;
+  const bandRow = (name: string, s: ComparisonSide) => {
+    const b = s.band;
+    if (!b) return `  ${name.padEnd(9)} no band`;
+    return `  ${name.padEnd(9)} ${`${b.arrived}`.padEnd(8)} ${formatSI(b.meanTime, 's').padEnd(10)} ${formatSI(Math.sqrt(b.timeVariance), 's').padEnd(10)} ${formatSI(b.plateHeight, 'm').padEnd(10)} ${(b.effectiveDiffusivity / cmp.referenceDiffusivity).toPrecision(4).padEnd(8)} ${formatSI(b.tilt, 'm')}`;
+  };
+  const b = cmp.band;
   const text = [
     `${design.name}: slip against pressure at the flow rate through port ${cmp.port}`,
     `heads ${Object.entries(cmp.pressures).map(([id, p]) => `${id} ${formatSI(p, 'Pa')}`).join(', ')} (${formatSI(cmp.pressurePerVolt, 'Pa')} per volt)`,
-    '  drive     flow rate      max speed    mean |ω|    wall shear  D_eff/D',
+    '  drive     flow rate      max speed    mean |ω|    wall shear  D_eff/D (depth-wise Taylor–Aris, area mean)',
     row('slip', cmp.slip),
     row('pressure', cmp.pressure),
+    b
+      ? [
+          `band of the reference species (D ${b.diffusivity.toPrecision(3)} m²/s, mobility 0): ${b.particles} particles, seed ${b.seed}, released across port ${cmp.port}'s channel and detected ${formatSI(b.distance, 'm')} on`,
+          '  drive     arrived  mean t̄     σ_t        plate H    D_app/D  tilt',
+          bandRow('slip', cmp.slip),
+          bandRow('pressure', cmp.pressure),
+        ].join('\n')
+      : `no band: ${cmp.bandProblem ?? 'not asked for (--particles 0)'}`,
+    ...(b && cmp.bandProblem ? [`note: ${cmp.bandProblem}`] : []),
     '',
   ].join('\n');
   return { json, text };

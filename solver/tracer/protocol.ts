@@ -4,7 +4,7 @@ import type { FluidRegion } from '../geometry/fluid-region';
 import { windingNumber } from '../geometry/ring';
 import { invalidDesign, SolveError } from '../result/errors';
 import { solveDesign, type SolveProgress, type SolveResult } from '../solve';
-import { traceBand, type Injection, type Species, type TraceResult } from './trace';
+import { traceBand, type Injection, type Species, type TraceFields, type TraceResult } from './trace';
 import { gridForSolve, traceFieldsOf } from './trace-fields';
 
 const { max, hypot } = Math;
@@ -94,21 +94,7 @@ export function runTrace(input: unknown, request: TraceRequest): TraceRun {
   if (automatic) {
     if (!request.detector) throw new SolveError('invalid-option', 'give the last phase a duration, or a detector line to run until the band has passed it', { field: 'duration' });
     const last = fields.length - 1;
-    const vmax = max(1e-30, ...fields.map((f) => speedLimit(f.velocityX, f.velocityY, f.fieldX, f.fieldY, request.species.mobility, grid.fraction)));
-    // Cap the pilot at 400 000 steps of 0.3 cells at the top speed.
-    const cap = (4e5 * 0.3 * grid.spacing) / vmax;
-    const pilot = placed(() => traceBand({
-      species: { mobility: request.species.mobility, diffusivity: 0 },
-      injection,
-      phases: fields.map((f, k) => ({ fields: f, duration: k === last ? cap : durations[k] })),
-      detector: request.detector,
-      particles: 24,
-      seed: request.seed ?? 1,
-      frames: 2,
-      depthDispersion: false,
-      shouldStop: request.shouldStop,
-    }));
-    const times = pilot.arrivals.time;
+    const times = pilotArrivals(fields, durations, injection, request.detector, request.species.mobility, request.seed ?? 1, request.shouldStop);
     if (times.length === 0) {
       throw new SolveError(
         'invalid-option',
@@ -134,6 +120,39 @@ export function runTrace(input: unknown, request: TraceRequest): TraceRun {
   }));
   if (request.shouldStop?.()) throw new SolveError('cancelled', 'The trace was stopped.');
   return { trace, solves, designs, durations, automatic };
+}
+
+/**
+ * A pilot for an open-ended last phase: 24 particles without diffusion (so along their streamlines) through the
+ * phases, the last held until they pass the detector, capped at 400 000 steps of 0.3 cells at the top species
+ * speed. Returns their arrival times at the detector (s, from the start of the last phase); empty when none
+ * arrive. `durations` gives every phase but the last.
+ */
+export function pilotArrivals(
+  fields: ReadonlyArray<TraceFields>,
+  durations: ReadonlyArray<number>,
+  injection: Injection,
+  detector: { from: Vec2; to: Vec2 },
+  mobility: number,
+  seed: number,
+  shouldStop?: () => boolean,
+): Float64Array {
+  const grid = fields[0].grid;
+  const last = fields.length - 1;
+  const vmax = max(1e-30, ...fields.map((f) => speedLimit(f.velocityX, f.velocityY, f.fieldX, f.fieldY, mobility, grid.fraction)));
+  const cap = (4e5 * 0.3 * grid.spacing) / vmax;
+  const pilot = placed(() => traceBand({
+    species: { mobility, diffusivity: 0 },
+    injection,
+    phases: fields.map((f, k) => ({ fields: f, duration: k === last ? cap : durations[k] })),
+    detector,
+    particles: 24,
+    seed,
+    frames: 2,
+    depthDispersion: false,
+    shouldStop,
+  }));
+  return pilot.arrivals.time;
 }
 
 /** traceBand refuses a region with too little fluid by a plain Error: that is the engineer's input, not a bug. */

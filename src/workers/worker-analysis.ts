@@ -47,12 +47,21 @@ export function solvesProgress(report: Report | undefined, labels: string[], sha
   };
 }
 
+/** Share of Compare's bar for its three solves; the two band runs (slip, then pressure) share the rest. */
+const COMPARE_SOLVES_SHARE = 0.75;
+
 export function compareOutcome(design: unknown, options: WorkerCompareOptions, report?: Report): CompareOutcome {
+  const bandShare = (1 - COMPARE_SOLVES_SHARE) / 2;
   return outcome(() => ({
     comparison: compareDrives(design, options.port, {
       cells: options.cells,
       referenceDiffusivity: options.referenceDiffusivity,
-      onProgress: solvesProgress(report, ['slip-driven solve', 'unit-head solve', 'pressure-driven solve']),
+      onProgress: solvesProgress(report, ['slip-driven solve', 'unit-head solve', 'pressure-driven solve'], COMPARE_SOLVES_SHARE),
+      onBandProgress: ({ side, fraction }) =>
+        report?.({
+          label: `${side}-driven band`,
+          fraction: COMPARE_SOLVES_SHARE + bandShare * ((side === 'slip' ? 0 : 1) + fraction),
+        }),
     }),
   }));
 }

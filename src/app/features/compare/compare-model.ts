@@ -1,6 +1,7 @@
 /**
  * The Compare tab's pure pieces: the port it starts on, one colour range shared by the slip and the pressure
- * maps, a first cut line across the chosen port's channel, and the rows of the side-by-side table.
+ * maps, a first cut line across the chosen port's channel, the rows of the side-by-side table and the two
+ * arrival-time curves of the tracer's band.
  */
 import type { DesignDocument } from '../../../../shared/design';
 import type { Comparison, ComparisonSide } from '../../../../solver/compare';
@@ -8,6 +9,7 @@ import type { SolveFields } from '../../../../solver/result/types';
 import type { Dimension } from '../../ui/units';
 import { colourRange, magnitude, MAPS, type ColourRange } from '../fields/field-maps';
 import { insideFluid, type Vec } from '../fields/field-sampling';
+import type { PlotSeries } from '../analysis/series-plot';
 
 export type CompareMap = 'speed' | 'vorticity';
 
@@ -79,7 +81,43 @@ export function compareRows(c: Comparison): CompareRow[] {
     row('Wall shear rate (largest)', 'vorticity', (s) => s.wallShear, { testId: 'row-shear', hint: '|ω| in the fluid cells along the side walls.' }),
     row('Taylor–Aris D_eff / D', 'dimensionless', (s) => s.dispersionRatio, {
       testId: 'row-dispersion',
-      hint: 'Depth-wise dispersion of the reference species, 1 + (|u − u_tb| d)² / (210 D²), area mean (physics.md §5).',
+      hint: 'Closed-form estimate: depth-wise dispersion of the reference species, 1 + (|u − u_tb| d)² / (210 D²), area mean over the chip (physics.md §5). No tracer.',
     }),
+    ...(c.slip.band && c.pressure.band ? bandRows(c) : []),
+  ];
+}
+
+type Band = NonNullable<ComparisonSide['band']>;
+
+/** The tracer's band, per side: the same release line, detector, particles and seed for both drives. */
+function bandRows(c: Comparison): CompareRow[] {
+  const row = (label: string, dimension: Dimension, of: (b: Band) => number, extra: Partial<CompareRow> = {}): CompareRow => ({
+    label,
+    dimension,
+    slip: of(c.slip.band!),
+    pressure: of(c.pressure.band!),
+    ...extra,
+  });
+  const D = c.referenceDiffusivity;
+  return [
+    row('Band: plate height H', 'length', (b) => b.plateHeight, { testId: 'row-band-plate', hint: 'From the tracer: H = U σ_t² / t̄ at the detector line.' }),
+    row('Band: arrival spread σ_t', 'time', (b) => Math.sqrt(b.timeVariance), { testId: 'row-band-spread', hint: 'Square root of the arrival-time variance at the detector.' }),
+    row('Band: mean arrival time t̄', 'time', (b) => b.meanTime, { testId: 'row-band-mean', hint: 'From the release line to the detector line.' }),
+    row('Band: D_app / D', 'dimensionless', (b) => b.effectiveDiffusivity / D, {
+      testId: 'row-band-dispersion',
+      hint: 'From the tracer: D_app = H U / 2, along the chosen port’s channel (depth-wise Taylor–Aris, side walls and diffusion together).',
+    }),
+    row('Band: tilt', 'length', (b) => b.tilt, { hint: 'Arrival-time skew across the detector times U.' }),
+  ];
+}
+
+/** The two arrival-time curves on the band's shared bins: particles per bin against the bin's mid time. */
+export function arrivalSeries(c: Comparison): PlotSeries[] {
+  const edges = c.band?.edges ?? [];
+  if (!c.slip.band || !c.pressure.band || edges.length < 2) return [];
+  const mids = Float64Array.from(edges.slice(1), (e, k) => (e + edges[k]) / 2);
+  return [
+    { label: 'slip-driven', x: mids, y: Float64Array.from(c.slip.band.counts) },
+    { label: 'pressure-driven', x: mids, y: Float64Array.from(c.pressure.band.counts), tone: 'tertiary', dashed: true },
   ];
 }

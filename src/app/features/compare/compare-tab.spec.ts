@@ -1,7 +1,9 @@
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { parseDesign, type DesignDocument } from '../../../../shared/design';
 import bend from '../../../../tests/fixtures/designs/bend-90.json';
+import { INSTANT } from '../../core/instant-client';
 import { ANALYSIS, type AnalysisClient } from '../../core/solver-client';
+import { instantComputations } from '../../../workers/instant';
 import { compareOutcome } from '../../../workers/worker-analysis';
 import { CompareTab } from './compare-tab';
 
@@ -43,7 +45,7 @@ describe('CompareTab', () => {
     // jsdom draws no canvas: the maps skip their image quietly.
     jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null);
     analysis = fakeAnalysis();
-    await TestBed.configureTestingModule({ imports: [CompareTab], providers: [{ provide: ANALYSIS, useValue: analysis }] }).compileComponents();
+    await TestBed.configureTestingModule({ imports: [CompareTab], providers: [{ provide: ANALYSIS, useValue: analysis }, { provide: INSTANT, useValue: instantComputations }] }).compileComponents();
     fixture = TestBed.createComponent(CompareTab);
     fixture.componentRef.setInput('document', doc);
     fixture.detectChanges();
@@ -65,6 +67,15 @@ describe('CompareTab', () => {
     expect(Number(el.querySelector('[data-testid=matched-flow]')!.getAttribute('data-ratio'))).toBeCloseTo(1, 6);
     expect(el.querySelector('[data-testid=row-flow]')).not.toBeNull();
     expect(el.querySelector('[data-testid=row-dispersion]')!.textContent).toMatch(/Taylor–Aris/);
+    // The tracer's band per side: plate height, spread and mean arrival time, and both arrival curves on one plot.
+    for (const id of ['row-band-plate', 'row-band-spread', 'row-band-mean', 'row-band-dispersion']) expect(el.querySelector(`[data-testid=${id}]`)).not.toBeNull();
+    const plate = el.querySelector('[data-testid=row-band-plate]')!.querySelectorAll('td');
+    expect(plate[0].textContent).toMatch(/m/);
+    expect(Number(plate[2].textContent!.replace(/,/g, ''))).toBeGreaterThan(1);
+    expect(el.querySelector('[data-testid=compare-band]')!.textContent).toContain('2000 particles');
+    expect(el.querySelectorAll('[data-testid=compare-arrivals] path[data-series]')).toHaveLength(2);
+    expect(el.querySelector('[data-testid=compare-arrivals] path[data-series="pressure-driven"]')!.getAttribute('d')).toMatch(/^M/);
+    expect(el.querySelector('[data-testid=compare-band-problem]')).toBeNull();
     // The first cut line crosses the chosen port's channel: both profiles are drawn.
     expect(el.querySelectorAll('[data-testid=compare-profile] path[data-series]')).toHaveLength(2);
     expect(el.querySelector('[data-testid=compare-profile] path[data-series="slip-driven"]')!.getAttribute('d')).toMatch(/^M/);

@@ -21,12 +21,13 @@ import { FieldMap, type CutLine, type MapPort } from '../fields/field-map';
 import { MAPS } from '../fields/field-maps';
 import { lineProfile } from '../fields/field-sampling';
 import { fluidOutline } from '../sketch/sketch-path';
-import { compareRows, compareValues, defaultComparePort, defaultCut, sharedRange, type CompareMap } from './compare-model';
+import { arrivalSeries, compareRows, compareValues, defaultComparePort, defaultCut, sharedRange, type CompareMap } from './compare-model';
 
 /**
  * The Compare tab (product.md, capability 5): the layout driven by slip (its electrodes, equal heads) and by
  * pressure (heads in the pattern of the port potentials, no field) at the same flow rate through a chosen port.
- * Both solves run in the worker; the maps share one colour scale; a cut line gives both profiles.
+ * Both solves run in the worker; the maps share one colour scale; a cut line gives both profiles; a band of the
+ * reference species traced through each drive gives its spreading and the two arrival-time curves.
  */
 @Component({
   selector: 'osm-compare-tab',
@@ -89,6 +90,10 @@ export class CompareTab {
   protected readonly rows = computed(() => {
     const c = this.comparison();
     return c ? compareRows(c) : [];
+  });
+  protected readonly arrivals = computed(() => {
+    const c = this.comparison();
+    return c ? arrivalSeries(c) : [];
   });
   protected readonly matched = computed(() => {
     const c = this.comparison();
