@@ -1,10 +1,10 @@
 /**
  * Planner benchmark (issue 7): one slider step on a layout of about 250 000 grid cells. The cross-injector
- * fixture is solved once per electrode at 1 V (unit responses, as the Planner tab's worker does); then a slider
- * step recombines fields on the main thread with no solve:
+ * fixture is solved once per electrode at 1 V (unit responses, as the Planner tab's worker does and keeps); then
+ * a slider step recombines fields with no solve (in the solver worker; the page draws the image):
  *   - one field (superposeField: Σ_k s_k · response_k over every cell, the planner's inner loop);
  *   - the speed map as the Planner tab draws it: both velocity components recombined in one pass per drive and
- *     |u| in place (planner-model.ts `recombine`), then the map's RGBA image (field-image.ts);
+ *     |u| in place (src/workers/worker-planner.ts `recombine`), then the map's RGBA image (field-image.ts);
  *   - for comparison, the same map from two superposeField calls, field-maps.ts `magnitude` and the image;
  * against one streaming pass over the field (read one array, write one), the cheapest a per-cell step can be.
  * Times are CPU milliseconds of this single-threaded process (the machine is shared), averaged over enough
@@ -14,7 +14,7 @@
  */
 import { colourRange, magnitude, MAPS } from '../src/app/features/fields/field-maps';
 import { fieldImage } from '../src/app/features/fields/field-image';
-import { recombine } from '../src/app/features/planner/planner-model';
+import { recombine } from '../src/workers/worker-planner';
 import { settingsOf, superposeField, unitResponses } from '../solver/planner';
 import { loadFixture } from '../tests/fixtures/designs';
 import { cpuSeconds } from './potential-baselines';
