@@ -4,8 +4,8 @@
  * arrival-time curves of the tracer's band.
  */
 import type { DesignDocument } from '../../../../shared/design';
-import type { Comparison, ComparisonSide } from '../../../../solver/compare';
-import type { SolveFields } from '../../../../solver/result/types';
+import type { Comparison, ComparisonSide } from '../../../workers/solver-api';
+import type { SolveFields } from '../../../../shared/result';
 import type { Dimension } from '../../ui/units';
 import { colourRange, magnitude, MAPS, type ColourRange } from '../fields/field-maps';
 import { insideFluid, type Vec } from '../fields/field-sampling';

@@ -11,7 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { DesignDocument } from '../../../../shared/design';
-import type { Comparison } from '../../../../solver/compare';
+import type { Comparison } from '../../../workers/solver-api';
 import { ANALYSIS, type AnalysisProgress } from '../../core/solver-client';
 import { QuantityPipe } from '../../ui/quantity-pipe';
 import { QuantityInput, blurOnEnter } from '../analysis/quantity-input';
@@ -20,7 +20,7 @@ import { ColourBar } from '../fields/colour-bar';
 import { FieldMap, type CutLine, type MapPort } from '../fields/field-map';
 import { MAPS } from '../fields/field-maps';
 import { lineProfile } from '../fields/field-sampling';
-import { fluidOutline } from '../sketch/sketch-path';
+import { fluidOutlineOf } from '../../core/instant-client';
 import { arrivalSeries, compareRows, compareValues, defaultComparePort, defaultCut, sharedRange, type CompareMap } from './compare-model';
 
 /**
@@ -76,7 +76,7 @@ export class CompareTab {
     const r = this.result();
     return !!r && r.document !== this.document();
   });
-  protected readonly outline = computed(() => fluidOutline((this.result()?.document ?? this.document()).shapes));
+  protected readonly outline = fluidOutlineOf(() => (this.result()?.document ?? this.document()).shapes);
   protected readonly mapPorts = computed<MapPort[]>(() => (this.result()?.document ?? this.document()).ports.map((p) => ({ id: p.id, from: p.from, to: p.to })));
   protected readonly values = computed(() => {
     const c = this.comparison();
