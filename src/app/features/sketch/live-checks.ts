@@ -1,4 +1,4 @@
-import { InjectionToken } from '@angular/core';
+import { InjectionToken, effect, inject, signal, type Signal } from '@angular/core';
 import type { DesignDocument, DesignProblem } from '../../../../shared/design';
 
 export type GeometryChecks = (doc: DesignDocument) => DesignProblem[] | Promise<DesignProblem[]>;
@@ -17,3 +17,25 @@ export const GEOMETRY_CHECKS = new InjectionToken<GeometryChecks>('Osmolane live
   providedIn: 'root',
   factory: () => NO_GEOMETRY_CHECKS,
 });
+
+/**
+ * The problems the live checks find in a document, asked a moment (200 ms) after its last change; an answer is
+ * kept only if the document is still the one it was asked about. Call in an injection context.
+ */
+export function liveProblemsOf(doc: () => DesignDocument): Signal<DesignProblem[]> {
+  const checks = inject(GEOMETRY_CHECKS);
+  const problems = signal<DesignProblem[]>([]);
+  effect((onCleanup) => {
+    const asked = doc();
+    const timer = setTimeout(() => {
+      Promise.resolve(checks(asked)).then(
+        (found) => {
+          if (doc() === asked) problems.set(found);
+        },
+        () => undefined,
+      );
+    }, 200);
+    onCleanup(() => clearTimeout(timer));
+  });
+  return problems.asReadonly();
+}

@@ -10,7 +10,7 @@ import { Subscription } from 'rxjs';
 import type { DesignDocument, Port, Shape } from '../../../../shared/design';
 import { quantityControl, quantityError, readQuantity, type QuantityRule } from '../../ui/quantity-validator';
 import { PORT_FIELDS, describeShape, shapeFields, MAX_VERTEX_FIELDS, type FieldSpec } from './inspector-fields';
-import type { Selection } from './sketch-canvas';
+import type { Selection } from './canvas-pointer';
 import { rotateShape, shapePivot } from './shape-transform';
 
 interface Item {

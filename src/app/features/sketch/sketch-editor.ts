@@ -1,40 +1,27 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, output, signal, untracked, viewChild } from '@angular/core';
-import { ReactiveFormsModule } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, computed, effect, input, linkedSignal, output, signal, untracked, viewChild } from '@angular/core';
+import { ReactiveFormsModule, type FormControl } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import type { DesignDocument, DesignProblem, Port, Shape } from '../../../../shared/design';
-import { quantityControl, quantityError, readQuantity, type QuantityRule } from '../../ui/quantity-validator';
+import type { DesignDocument, Port, Shape } from '../../../../shared/design';
+import { quantityControl, quantityError, readQuantity } from '../../ui/quantity-validator';
 import { formatQuantity } from '../../ui/units';
+import type { CanvasPointer, DragMode, Selection, SketchPreview } from './canvas-pointer';
 import { emptyHistory, record, redo, undo, type History } from './design-history';
-import { GEOMETRY_CHECKS } from './live-checks';
+import { liveProblemsOf } from './live-checks';
 import { nextPortId, portSegmentNear, sameSegment } from './port-placement';
 import { ShapeInspector } from './shape-inspector';
-import { portsOnShape, rotatePort, rotateShape, shapeBounds, shapePivot, translatePort, translateShape, wrapAngle } from './shape-transform';
+import { attachedPorts, draggedDocument, nudgedDocument, type Drag } from './shape-drag';
+import { shapePivot } from './shape-transform';
 import { fluidOutlineOf } from '../../core/instant-client';
-import { SketchCanvas, type CanvasPointer, type DragMode, type Selection, type SketchPreview } from './sketch-canvas';
-import { TOOLS, toolByKey, type ToolId } from './sketch-tools';
-import { snapAngle } from './snap';
-import {
-  JUNCTION_KINDS,
-  bendFromPoints,
-  chamberFromCorners,
-  directionDeg,
-  freeformPolygon,
-  junctionShapes,
-  pillarAt,
-  straightChannel,
-  type JunctionKind,
-  type Vec,
-} from './tool-geometry';
-
-type Drag =
-  | { kind: 'move'; index: number; start: Vec; base: DesignDocument; ports: number[] }
-  | { kind: 'rotate'; index: number; pivot: Vec; startAngle: number; base: DesignDocument; ports: number[] }
-  | { kind: 'chamber'; start: Vec };
+import { SketchCanvas } from './sketch-canvas';
+import { claimsKey, sketchKeyCommand } from './sketch-keys';
+import { TOOLS, type ToolId } from './sketch-tools';
+import { JUNCTION_KINDS, chamberFromCorners, directionDeg, freeformPolygon, type JunctionKind, type Vec } from './tool-geometry';
+import { DEFAULT_TOOL_SETTINGS, TOOL_SETTING_RULES, toolClick, toolPreview, type ToolSettings, type ToolState } from './tool-steps';
 
 /** Pointer distance (screen px) within which the Port tool finds the outline and Freeform closes. */
 const PICK_PIXELS = 10;
@@ -66,7 +53,6 @@ export class SketchEditor {
   readonly readOnly = input(false);
   readonly documentChange = output<DesignDocument>();
 
-  private readonly checks = inject(GEOMETRY_CHECKS);
   protected readonly tools = TOOLS;
   protected readonly junctionKinds = JUNCTION_KINDS;
   private readonly canvas = viewChild(SketchCanvas);
@@ -89,20 +75,20 @@ export class SketchEditor {
   protected readonly notice = signal('');
 
   // ---- tool settings, typed with units
-  private readonly lengthRule: QuantityRule = { dimension: 'length', defaultUnit: 'um', min: 0, minExclusive: true };
-  protected readonly straightWidth = quantityControl(5e-5, this.lengthRule);
-  protected readonly bendWidth = quantityControl(5e-5, this.lengthRule);
-  protected readonly junctionLeg = quantityControl(5e-4, this.lengthRule);
-  protected readonly junctionWidth = quantityControl(5e-5, this.lengthRule);
-  protected readonly junctionAngle = quantityControl(0, { dimension: 'angle', defaultUnit: 'deg' });
-  protected readonly pillarRadius = quantityControl(2.5e-5, this.lengthRule);
+  private readonly settings = signal<ToolSettings>(DEFAULT_TOOL_SETTINGS);
+  protected readonly straightWidth = this.settingControl('straightWidth');
+  protected readonly bendWidth = this.settingControl('bendWidth');
+  protected readonly junctionLeg = this.settingControl('junctionLeg');
+  protected readonly junctionWidth = this.settingControl('junctionWidth');
+  protected readonly junctionAngle = this.settingControl('junctionAngle');
+  protected readonly pillarRadius = this.settingControl('pillarRadius');
   protected readonly junctionKind = signal<JunctionKind>('tee');
-  private readonly settings = signal({ straightWidth: 5e-5, bendWidth: 5e-5, junctionLeg: 5e-4, junctionWidth: 5e-5, junctionAngle: 0, pillarRadius: 2.5e-5 });
 
   /** What the drawing shows: the drag in progress, or the document. */
   protected readonly shown = computed(() => this.draft() ?? this.doc());
   protected readonly outline = fluidOutlineOf(() => this.shown().shapes);
-  protected readonly problems = signal<DesignProblem[]>([]);
+  /** Live validation, a moment after the last change. */
+  protected readonly problems = liveProblemsOf(() => this.doc());
   protected readonly errorCount = computed(() => this.problems().filter((p) => p.severity === 'error').length);
 
   protected readonly dragMode = computed<DragMode>(() => {
@@ -111,7 +97,7 @@ export class SketchEditor {
     return t === 'select' ? 'pan-empty' : t === 'chamber' ? 'draw' : 'pan-anywhere';
   });
 
-  protected readonly preview = computed<SketchPreview | null>(() => this.buildPreview());
+  protected readonly preview = computed<SketchPreview | null>(() => (this.readOnly() ? null : toolPreview(this.toolState(), this.hover(), (world) => this.portSegmentAt(world))));
 
   protected readonly cursorText = computed(() => {
     const h = this.hover();
@@ -137,30 +123,17 @@ export class SketchEditor {
         this.keepSelectionValid();
       });
     });
-    // Live validation, a moment after the last change.
-    effect((onCleanup) => {
-      const doc = this.doc();
-      const timer = setTimeout(() => {
-        Promise.resolve(this.checks(doc)).then(
-          (problems) => {
-            if (this.doc() === doc) this.problems.set(problems);
-          },
-          () => undefined,
-        );
-      }, 200);
-      onCleanup(() => clearTimeout(timer));
+  }
+
+  /** The field of one tool setting; every valid value typed in goes into the settings. */
+  private settingControl(key: keyof ToolSettings): FormControl<string> {
+    const rule = TOOL_SETTING_RULES[key];
+    const control = quantityControl(DEFAULT_TOOL_SETTINGS[key], rule);
+    control.valueChanges.subscribe((text) => {
+      const r = readQuantity(text, rule);
+      if (r.ok) this.settings.update((s) => ({ ...s, [key]: r.value }));
     });
-    const bind = (control: typeof this.straightWidth, key: keyof ReturnType<typeof this.settings>, rule: QuantityRule) =>
-      control.valueChanges.subscribe((text) => {
-        const r = readQuantity(text, rule);
-        if (r.ok) this.settings.update((s) => ({ ...s, [key]: r.value }));
-      });
-    bind(this.straightWidth, 'straightWidth', this.lengthRule);
-    bind(this.bendWidth, 'bendWidth', this.lengthRule);
-    bind(this.junctionLeg, 'junctionLeg', this.lengthRule);
-    bind(this.junctionWidth, 'junctionWidth', this.lengthRule);
-    bind(this.junctionAngle, 'junctionAngle', { dimension: 'angle', defaultUnit: 'deg' });
-    bind(this.pillarRadius, 'pillarRadius', this.lengthRule);
+    return control;
   }
 
   protected fieldError(control: typeof this.straightWidth): string {
@@ -235,26 +208,10 @@ export class SketchEditor {
     this.commit({ ...doc, ports: doc.ports.map((p, k) => (k === e.index ? e.port : p)) });
   }
 
-  private attachedPorts(doc: DesignDocument, index: number): number[] {
-    const shape = doc.shapes[index];
-    const b = shapeBounds(shape);
-    return portsOnShape(shape, doc.ports, 1e-9 + 1e-7 * Math.max(b[2] - b[0], b[3] - b[1]));
-  }
-
   private nudge(dx: number, dy: number): void {
     const sel = this.selection();
     if (!sel || this.readOnly()) return;
-    const doc = this.doc();
-    if (sel.kind === 'shape') {
-      const ports = this.attachedPorts(doc, sel.index);
-      this.commit({
-        ...doc,
-        shapes: doc.shapes.map((s, k) => (k === sel.index ? translateShape(s, dx, dy) : s)),
-        ports: doc.ports.map((p, k) => (ports.includes(k) ? translatePort(p, dx, dy) : p)),
-      });
-    } else {
-      this.commit({ ...doc, ports: doc.ports.map((p, k) => (k === sel.index ? translatePort(p, dx, dy) : p)) });
-    }
+    this.commit(nudgedDocument(this.doc(), sel, dx, dy));
   }
 
   // ---------------------------------------------------------------- tools
@@ -290,55 +247,12 @@ export class SketchEditor {
     return 1 / (this.canvas()?.pixelsPerMetre() ?? 1e6);
   }
 
-  private constrained(from: Vec, to: Vec, shift: boolean): Vec {
-    if (!shift) return to;
-    const angle = snapAngle(directionDeg(from, to), 15);
-    const len = Math.hypot(to[0] - from[0], to[1] - from[1]);
-    const r = (angle * Math.PI) / 180;
-    return [from[0] + len * Math.cos(r), from[1] + len * Math.sin(r)];
-  }
-
   private portSegmentAt(world: Vec) {
     return portSegmentNear(this.outline(), world, PICK_PIXELS * this.metresPerPixel());
   }
 
-  private buildPreview(): SketchPreview | null {
-    if (this.readOnly()) return null;
-    const h = this.hover();
-    const pts = this.points();
-    const s = this.settings();
-    const at = h?.snapped;
-    switch (this.tool()) {
-      case 'straight': {
-        if (pts.length === 0 || !at) return pts.length ? { shapes: [], points: pts } : null;
-        const end = this.constrained(pts[0], at, !!h?.event.shiftKey);
-        const shape = straightChannel(pts[0], end, s.straightWidth);
-        return { shapes: shape ? [shape] : [], points: pts, rubber: [pts[0], end] };
-      }
-      case 'bend': {
-        if (pts.length === 0 || !at) return pts.length ? { shapes: [], points: pts } : null;
-        if (pts.length === 1) return { shapes: [], points: pts, rubber: [pts[0], at] };
-        const shape = bendFromPoints(pts[0], pts[1], at, s.bendWidth);
-        return { shapes: shape ? [shape] : [], points: pts, rubber: [pts[0], at] };
-      }
-      case 'junction':
-        return at ? { shapes: junctionShapes(this.junctionKind(), at, s.junctionLeg, s.junctionWidth, s.junctionAngle), points: [] } : null;
-      case 'chamber': {
-        const start = this.chamberStart();
-        const shape = start && at ? chamberFromCorners(start, at) : null;
-        return { shapes: shape ? [shape] : [], points: start ? [start] : [] };
-      }
-      case 'pillar': {
-        const shape = at ? pillarAt(at, s.pillarRadius) : null;
-        return shape ? { shapes: [shape], points: [] } : null;
-      }
-      case 'freeform':
-        return pts.length ? { shapes: [], points: pts, rubber: at ? [pts[pts.length - 1], at] : null } : null;
-      case 'port':
-        return h ? { shapes: [], points: [], segment: this.portSegmentAt(h.world) } : null;
-      default:
-        return null;
-    }
+  private toolState(): ToolState {
+    return { tool: this.tool(), points: this.points(), chamberStart: this.chamberStart(), settings: this.settings(), junctionKind: this.junctionKind() };
   }
 
   protected onPointer(p: CanvasPointer): void {
@@ -378,13 +292,13 @@ export class SketchEditor {
         const sel = this.selection();
         if (sel?.kind !== 'shape') return;
         const pivot = shapePivot(doc.shapes[sel.index]);
-        this.drag = { kind: 'rotate', index: sel.index, pivot, startAngle: directionDeg(pivot, p.world), base: doc, ports: this.attachedPorts(doc, sel.index) };
+        this.drag = { kind: 'rotate', index: sel.index, pivot, startAngle: directionDeg(pivot, p.world), base: doc, ports: attachedPorts(doc, sel.index) };
         this.canvas()?.capture(p.event);
         return;
       }
       this.selectHit(p);
       if (p.hit?.kind === 'shape') {
-        this.drag = { kind: 'move', index: p.hit.index, start: p.snapped, base: doc, ports: this.attachedPorts(doc, p.hit.index) };
+        this.drag = { kind: 'move', index: p.hit.index, start: p.snapped, base: doc, ports: attachedPorts(doc, p.hit.index) };
         this.canvas()?.capture(p.event);
       }
       return;
@@ -392,22 +306,7 @@ export class SketchEditor {
     const drag = this.drag;
     if (!drag || drag.kind === 'chamber') return;
     if (p.type === 'move') {
-      if (drag.kind === 'move') {
-        const dx = p.snapped[0] - drag.start[0], dy = p.snapped[1] - drag.start[1];
-        this.draft.set(dx === 0 && dy === 0 ? null : {
-          ...drag.base,
-          shapes: drag.base.shapes.map((s, k) => (k === drag.index ? translateShape(s, dx, dy) : s)),
-          ports: drag.base.ports.map((q, k) => (drag.ports.includes(k) ? translatePort(q, dx, dy) : q)),
-        });
-      } else {
-        const raw = directionDeg(drag.pivot, p.world) - drag.startAngle;
-        const deg = p.event.altKey ? wrapAngle(raw) : snapAngle(wrapAngle(raw), 5);
-        this.draft.set(deg === 0 ? null : {
-          ...drag.base,
-          shapes: drag.base.shapes.map((s, k) => (k === drag.index ? rotateShape(s, deg, drag.pivot) : s)),
-          ports: drag.base.ports.map((q, k) => (drag.ports.includes(k) ? rotatePort(q, deg, drag.pivot) : q)),
-        });
-      }
+      this.draft.set(draggedDocument(drag, { snapped: p.snapped, world: p.world, free: p.event.altKey }));
     } else if (p.type === 'up') {
       const draft = this.draft();
       this.drag = null;
@@ -431,55 +330,12 @@ export class SketchEditor {
   }
 
   private clickTool(p: CanvasPointer): void {
-    const s = this.settings();
-    const pts = this.points();
-    const at = p.snapped;
-    switch (this.tool()) {
-      case 'straight': {
-        if (pts.length === 0) {
-          this.points.set([at]);
-          return;
-        }
-        const shape = straightChannel(pts[0], this.constrained(pts[0], at, p.event.shiftKey), s.straightWidth);
-        this.points.set([]);
-        if (shape) this.addShapes([shape]);
-        else this.notice.set('The end is on the start; click the end of the channel somewhere else.');
-        return;
-      }
-      case 'bend': {
-        if (pts.length < 2) {
-          this.points.set([...pts, at]);
-          return;
-        }
-        const shape = bendFromPoints(pts[0], pts[1], at, s.bendWidth);
-        this.points.set([]);
-        if (shape) this.addShapes([shape]);
-        else this.notice.set('The radius must be more than half the width, and the end must turn away from the start.');
-        return;
-      }
-      case 'junction': {
-        const shapes = junctionShapes(this.junctionKind(), at, s.junctionLeg, s.junctionWidth, s.junctionAngle);
-        if (shapes.length) this.addShapes(shapes);
-        else this.notice.set('The legs must be longer than half their width.');
-        return;
-      }
-      case 'pillar': {
-        const shape = pillarAt(at, s.pillarRadius);
-        if (shape) this.addShapes([shape]);
-        return;
-      }
-      case 'freeform': {
-        const first = pts[0];
-        if (first && pts.length >= 3 && Math.hypot(at[0] - first[0], at[1] - first[1]) <= PICK_PIXELS * this.metresPerPixel()) {
-          this.closeFreeform();
-          return;
-        }
-        this.points.set([...pts, at]);
-        return;
-      }
-      case 'port':
-        return this.placePort(p.world);
-    }
+    if (this.tool() === 'port') return this.placePort(p.world);
+    const step = toolClick(this.toolState(), p.snapped, p.event.shiftKey, PICK_PIXELS * this.metresPerPixel());
+    if (step.close) return this.closeFreeform();
+    if (step.points) this.points.set(step.points);
+    if (step.shapes) this.addShapes(step.shapes);
+    if (step.notice) this.notice.set(step.notice);
   }
 
   private closeFreeform(): void {
@@ -511,56 +367,40 @@ export class SketchEditor {
   // ---------------------------------------------------------------- keyboard
 
   protected onKey(e: KeyboardEvent): void {
-    const target = e.target as HTMLElement | null;
-    if (target?.closest('input, textarea, select, [contenteditable], mat-select, .mat-mdc-select')) return;
-    const mod = e.ctrlKey || e.metaKey;
-    const key = e.key.toLowerCase();
-    if (mod && key === 'z') {
-      e.preventDefault();
-      if (e.shiftKey) this.redo();
-      else this.undo();
-      return;
-    }
-    if (mod && key === 'y') {
-      e.preventDefault();
-      this.redo();
-      return;
-    }
-    if (mod || e.altKey) return;
-    if (e.key === 'Escape') {
-      if (this.points().length || this.drag) {
-        this.points.set([]);
-        this.chamberStart.set(null);
-        this.drag = null;
-        this.draft.set(null);
-      } else if (this.tool() !== 'select') {
-        this.setTool('select');
-      } else {
-        this.selection.set(null);
+    const command = sketchKeyCommand(e, { readOnly: this.readOnly(), tool: this.tool(), selected: this.selection() !== null });
+    if (!command) return;
+    if (claimsKey(command)) e.preventDefault();
+    switch (command.kind) {
+      case 'undo':
+        return this.undo();
+      case 'redo':
+        return this.redo();
+      case 'cancel':
+        return this.cancel();
+      case 'delete':
+        return this.deleteSelection();
+      case 'close':
+        return this.closeFreeform();
+      case 'nudge': {
+        const step = this.canvas()?.snapStep() ?? 1e-5;
+        return this.nudge(command.steps[0] * step, command.steps[1] * step);
       }
-      return;
+      case 'tool':
+        return this.setTool(command.tool);
     }
-    if (this.readOnly()) return;
-    if (e.key === 'Delete' || e.key === 'Backspace') {
-      e.preventDefault();
-      this.deleteSelection();
-      return;
-    }
-    if (e.key === 'Enter' && this.tool() === 'freeform') {
-      e.preventDefault();
-      this.closeFreeform();
-      return;
-    }
-    const arrows: Record<string, Vec> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, 1], ArrowDown: [0, -1] };
-    if (arrows[e.key] && this.selection()) {
-      e.preventDefault();
-      const step = (this.canvas()?.snapStep() ?? 1e-5) * (e.shiftKey ? 10 : 1);
-      this.nudge(arrows[e.key][0] * step, arrows[e.key][1] * step);
-      return;
-    }
-    const tool = toolByKey(key);
-    if (tool && !e.shiftKey) {
-      this.setTool(tool.id);
+  }
+
+  /** Escape: drops the points or drag in progress, else goes back to Select, else clears the selection. */
+  private cancel(): void {
+    if (this.points().length || this.drag) {
+      this.points.set([]);
+      this.chamberStart.set(null);
+      this.drag = null;
+      this.draft.set(null);
+    } else if (this.tool() !== 'select') {
+      this.setTool('select');
+    } else {
+      this.selection.set(null);
     }
   }
 }
