@@ -7,12 +7,14 @@
  *   reads      GET designs list / GET one design, alternating   100 clients
  *   runs       POST a run with an 8 MB field blob (base64)      10 clients
  *
- * Reads and run uploads go in two rounds, and the server's RSS is read after each (from /proc).
+ * Reads and run uploads go in two rounds, and the server's RSS is read after each (from /proc). Beside the latencies,
+ * the CPU time per request of the server process and of its PostgreSQL backends (from /proc): on a machine shared
+ * with other work those move much less than the latencies do, so they are the figures to compare between changes.
  * Env: BENCH_SECONDS (each reads phase, default 10), BENCH_RUNS (uploads per round, default 30), BENCH_PORT (default 4390).
  */
 import { spawn, execFileSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import { join } from 'node:path';
 import type { SignInResponse } from '../shared/api';
@@ -44,6 +46,32 @@ function rssMiB(pid: number): number {
   const status = readFileSync(`/proc/${pid}/status`, 'utf8');
   const kb = Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? NaN);
   return kb / 1024;
+}
+
+/** CPU time (user + system) of a process so far, in microseconds; 0 once it is gone. */
+function cpuMicros(pid: number | string): number {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+    return ((Number(fields[11]) + Number(fields[12])) * 1e6) / clockTicks;
+  } catch {
+    return 0;
+  }
+}
+const clockTicks = Number(execFileSync('getconf', ['CLK_TCK'], { encoding: 'utf8' }).trim()) || 100;
+
+/** CPU time of the PostgreSQL backends serving the benchmark's database (their command line names it). */
+function postgresMicros(): number {
+  const backend = new RegExp(`^postgres: \\S+ ${database} `);
+  let total = 0;
+  for (const pid of readdirSync('/proc')) {
+    if (!/^\d+$/.test(pid)) continue;
+    try {
+      if (backend.test(readFileSync(`/proc/${pid}/cmdline`, 'utf8'))) total += cpuMicros(pid);
+    } catch {
+      // ended meanwhile
+    }
+  }
+  return total;
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -97,12 +125,16 @@ interface Row {
   p95: number;
   p99: number;
   errors: number;
+  /** CPU time per request (µs) of the server process and of its PostgreSQL backends. */
+  serverCpu: number;
+  postgresCpu: number;
   /** Answers other than 2xx, by status, and transport errors. */
   problems: string;
 }
 
-function load(name: string, opts: Record<string, unknown>): Promise<Row> {
+function load(serverPid: number, name: string, opts: Record<string, unknown>): Promise<Row> {
   const times: number[] = [];
+  const cpu0 = [cpuMicros(serverPid), postgresMicros()];
   const statuses = new Map<number, number>();
   return new Promise((resolve, reject) => {
     const tracker = autocannon({ ...opts, url: `${base}${(opts['path'] as string | undefined) ?? ''}` }, (err, result) => {
@@ -117,6 +149,8 @@ function load(name: string, opts: Record<string, unknown>): Promise<Row> {
         p95: percentile(times, 95),
         p99: percentile(times, 99),
         errors: result.errors + result.timeouts + result.non2xx,
+        serverCpu: (cpuMicros(serverPid) - cpu0[0]!) / result.requests.total,
+        postgresCpu: (postgresMicros() - cpu0[1]!) / result.requests.total,
         problems: [
           ...[...statuses].filter(([s]) => s < 200 || s >= 300).map(([s, n]) => `${n} x ${s}`),
           ...(result.errors ? [`${result.errors} errors`] : []),
@@ -132,8 +166,10 @@ function load(name: string, opts: Record<string, unknown>): Promise<Row> {
 }
 
 function table(rows: Row[]): void {
-  const head = ['benchmark', 'clients', 'requests', 'req/s', 'p50 ms', 'p95 ms', 'p99 ms', 'errors'];
-  const lines = rows.map((r) => [r.name, r.clients, r.requests, r.perSecond.toFixed(0), r.p50.toFixed(1), r.p95.toFixed(1), r.p99.toFixed(1), r.errors].map(String));
+  const head = ['benchmark', 'clients', 'requests', 'req/s', 'p50 ms', 'p95 ms', 'p99 ms', 'errors', 'server µs/req', 'pg µs/req'];
+  const lines = rows.map((r) =>
+    [r.name, r.clients, r.requests, r.perSecond.toFixed(0), r.p50.toFixed(1), r.p95.toFixed(1), r.p99.toFixed(1), r.errors, r.serverCpu.toFixed(0), r.postgresCpu.toFixed(0)].map(String),
+  );
   const widths = head.map((h, k) => Math.max(h.length, ...lines.map((l) => l[k]!.length)));
   const fmt = (cells: string[]) => cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]!) : c.padStart(widths[k]!))).join('  ');
   console.log(`\n${fmt(head)}\n${widths.map((w) => '-'.repeat(w)).join('  ')}`);
@@ -163,16 +199,16 @@ async function main(): Promise<void> {
     ];
 
     const rss: [string, number][] = [['at start', rssMiB(pid)]];
-    await load('warm-up', { connections: 20, duration: 2, requests: reads });
+    await load(pid, 'warm-up', { connections: 20, duration: 2, requests: reads });
     const rows: Row[] = [];
-    rows.push(await load('baseline: health', { connections: 100, duration: Math.max(2, seconds / 3), path: '/api/health' }));
+    rows.push(await load(pid, 'baseline: health', { connections: 100, duration: Math.max(2, seconds / 3), path: '/api/health' }));
     rss.push(['after warm-up', rssMiB(pid)]);
     const body = JSON.stringify({ settings: { cells: 800 }, summary: { ports: [], metrics: {}, warnings: [] }, fields: randomBytes(8 * 1024 * 1024).toString('base64') });
     // Two rounds of the same work: memory that keeps growing from round to round is a leak; growth in the
     // first round only is the heap and the allocator settling.
     for (const round of [1, 2]) {
-      rows.push(await load(`reads: list + design #${round}`, { connections: 100, duration: seconds, requests: reads }));
-      rows.push(await load(`runs: 8 MB blob #${round}`, { connections: 10, amount: runUploads, method: 'POST', path: `/api/revisions/${revision.id}/runs`, headers: auth, body, timeout: 120 }));
+      rows.push(await load(pid, `reads: list + design #${round}`, { connections: 100, duration: seconds, requests: reads }));
+      rows.push(await load(pid, `runs: 8 MB blob #${round}`, { connections: 10, amount: runUploads, method: 'POST', path: `/api/revisions/${revision.id}/runs`, headers: auth, body, timeout: 120 }));
       rss.push([`after round ${round}`, rssMiB(pid)]);
     }
 

@@ -1,7 +1,6 @@
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
-import morgan from 'morgan';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import type { MikroORM } from '@mikro-orm/postgresql';
@@ -10,6 +9,7 @@ import type { ServerConfig } from './config';
 import { errorHandler, notFoundRoute } from './errors';
 import { Mailbox } from './mail/mailbox';
 import { Mailer } from './mail/mailer';
+import { requestLog } from './request-log';
 import { authRoutes } from './routes/auth';
 import { ApiRoutes, type RouteInfo } from './routes/define';
 import { designRoutes } from './routes/designs';
@@ -72,7 +72,7 @@ export function createApp(ctx: AppContext): Express {
       },
     }),
   );
-  if (config.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
+  if (config.logRequests) app.use(requestLog());
   app.use('/api', express.json({ limit: config.jsonLimit }));
   app.use('/api', cookieParser());
 

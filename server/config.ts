@@ -26,6 +26,11 @@ export interface ServerConfig {
   /** Development routes (the mailbox) exist only outside production. */
   devRoutes: boolean;
   accessTokenSeconds: number;
+  /**
+   * How long this process may answer "the session is open" from memory (0: ask PostgreSQL on every request).
+   * Ending a session in this process takes effect at once; other processes on the same database notice within this time.
+   */
+  sessionCacheSeconds: number;
   refreshTokenDays: number;
   /** bcrypt cost factor for new password hashes. */
   passwordHashCost: number;
@@ -102,6 +107,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     mailFrom: env['MAIL_FROM'] || 'Osmolane <no-reply@osmolane.invalid>',
     devRoutes: !production,
     accessTokenSeconds: numberFrom(env['ACCESS_TOKEN_SECONDS'], 15 * 60),
+    sessionCacheSeconds: numberFrom(env['SESSION_CACHE_SECONDS'], 5),
     refreshTokenDays: numberFrom(env['REFRESH_TOKEN_DAYS'], 14),
     passwordHashCost: numberFrom(env['BCRYPT_COST'], 11),
     rateLimits: {

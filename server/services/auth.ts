@@ -1,10 +1,11 @@
 import type { EntityManager, MikroORM } from '@mikro-orm/postgresql';
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, type User } from '../../shared/api';
 import type { SignedInUser } from '../auth/passport';
+import { SessionCache, type OpenSession } from '../auth/session-cache';
 import { hashPassword, newToken, passwordMatches, sameHash, tokenHash } from '../auth/secrets';
 import { signAccessToken } from '../auth/tokens';
 import type { ServerConfig } from '../config';
-import { queryRow, run } from '../db/sql';
+import { preparedRow, queryRow, run } from '../db/sql';
 import { ApiError } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { resetMail } from '../mail/messages';
@@ -41,21 +42,31 @@ export function normaliseEmail(email: string): string {
 
 /** Accounts, sessions, passwords. Sessions are rows; ending one makes its access tokens stop working at once. */
 export class AuthService {
+  /** Open sessions seen in the last few seconds (config.sessionCacheSeconds); see SessionCache for what that means. */
+  private readonly sessions: SessionCache;
+
   constructor(
     private readonly orm: MikroORM,
     private readonly config: ServerConfig,
     private readonly mailer: Mailer,
-  ) {}
+  ) {
+    this.sessions = new SessionCache(config.sessionCacheSeconds * 1000, (sessionId, userId) => this.lookUpSession(sessionId, userId));
+  }
 
   /** For passport-jwt: the user of a session that is still open. */
-  async findSession(sessionId: string, userId: number): Promise<SignedInUser | null> {
-    const row = await queryRow<{ id: number; email: string; name: string }>(
-      this.orm.em.fork(),
-      `select u.id, u.email, u.name from sessions s join users u on u.id = s.user_id
-       where s.id = ? and s.user_id = ? and s.expires_at > now()`,
+  findSession(sessionId: string, userId: number): Promise<SignedInUser | null> {
+    return this.sessions.find(sessionId, userId);
+  }
+
+  private async lookUpSession(sessionId: string, userId: number): Promise<OpenSession | null> {
+    const row = await preparedRow<{ id: number; email: string; name: string; expires_at: Date }>(
+      this.orm,
+      `select u.id, u.email, u.name, s.expires_at from sessions s join users u on u.id = s.user_id
+       where s.id = $1 and s.user_id = $2 and s.expires_at > now()`,
       [sessionId, userId],
     );
-    return row ? { ...row, sessionId } : null;
+    if (!row) return null;
+    return { user: { id: row.id, email: row.email, name: row.name, sessionId }, expiresAt: new Date(row.expires_at).getTime() };
   }
 
   async me(userId: number): Promise<User> {
@@ -157,12 +168,16 @@ export class AuthService {
     if (session?.recent && session.previous_hash && sameHash(session.previous_hash, presented)) {
       return this.accessFor(await this.me(session.user_id), sessionId);
     }
-    if (session) await run(em, 'delete from sessions where id = ?', [sessionId]);
+    if (session) {
+      await run(em, 'delete from sessions where id = ?', [sessionId]);
+      this.sessions.forget(sessionId);
+    }
     throw new ApiError('not-signed-in', 'The session has ended; sign in again');
   }
 
   async signOut(sessionId: string): Promise<void> {
     await run(this.orm.em.fork(), 'delete from sessions where id = ?', [sessionId]);
+    this.sessions.forget(sessionId);
   }
 
   /** Changes the password and ends the account's other sessions. */
@@ -177,6 +192,7 @@ export class AuthService {
       await run(tx, 'update users set password_hash = ? where id = ?', [passwordHash, user.id]);
       await run(tx, 'delete from sessions where user_id = ? and id <> ?', [user.id, user.sessionId]);
     });
+    this.sessions.forgetUser(user.id);
   }
 
   /** Mails a reset link when the account exists; answers the same either way (no account enumeration). */
@@ -199,7 +215,7 @@ export class AuthService {
   /** Uses a reset link once: sets the password and ends every session of the account. */
   async resetPassword(token: string, newPassword: string): Promise<void> {
     const passwordHash = await this.hash(newPassword);
-    await this.orm.em.fork().transactional(async (em) => {
+    const userId = await this.orm.em.fork().transactional(async (em) => {
       const used = await queryRow<{ user_id: number }>(
         em,
         `update password_resets set used_at = now()
@@ -210,6 +226,8 @@ export class AuthService {
       await run(em, 'update users set password_hash = ? where id = ?', [passwordHash, used.user_id]);
       await run(em, 'delete from sessions where user_id = ?', [used.user_id]);
       await run(em, 'update password_resets set used_at = now() where user_id = ? and used_at is null', [used.user_id]);
+      return used.user_id;
     });
+    this.sessions.forgetUser(userId);
   }
 }

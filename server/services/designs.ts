@@ -3,28 +3,37 @@ import { parseDesign } from '../../shared/design';
 import type { DesignDetail, DesignSort, DesignSummary, Page, ReviewState, Role } from '../../shared/api';
 import type { SignedInUser } from '../auth/passport';
 import type { ServerConfig } from '../config';
-import { containsPattern, iso, queryRow, queryRows } from '../db/sql';
+import { containsPattern, iso, preparedRow, preparedRows, queryRow, queryRows } from '../db/sql';
 import { ApiError } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { reviewMail } from '../mail/messages';
-import { atLeast, type Access } from './access';
+import { atLeast, type Access, type AccessService, type Found } from './access';
 import type { ActivityService } from './activity';
 
-interface Row {
+interface SummaryRow {
   id: number;
-  workspace_id: number;
   name: string;
   version: number;
   review_state: ReviewState;
-  document?: unknown;
-  created_at: Date;
   updated_at: Date;
   updated_by_id: number | null;
   updated_by_name: string | null;
 }
 
-const COLUMNS = `d.id, d.workspace_id, d.name, d.version, d.review_state, d.created_at, d.updated_at,
-  d.updated_by_id, u.name as updated_by_name`;
+interface Row extends SummaryRow {
+  workspace_id: number;
+  document: unknown;
+  created_at: Date;
+  /** The reader's membership role in the design's workspace (null when not a member). */
+  role: Role | null;
+}
+
+const SUMMARY_COLUMNS = `d.id, d.name, d.version, d.review_state, d.updated_at, d.updated_by_id, u.name as updated_by_name`;
+
+/** One design ($2) with the role of a user ($1) in its workspace (for AccessService.decide). */
+const DETAIL = `select ${SUMMARY_COLUMNS}, d.workspace_id, d.created_at, d.document, m.role from designs d
+  left join users u on u.id = d.updated_by_id
+  left join memberships m on m.workspace_id = d.workspace_id and m.user_id = $1 where d.id = $2`;
 
 const ORDER: Record<DesignSort, string> = {
   name: 'lower(d.name)',
@@ -32,7 +41,7 @@ const ORDER: Record<DesignSort, string> = {
   reviewState: "array_position(array['draft','in review','mask-ready'], d.review_state)",
 };
 
-function summary(r: Row): DesignSummary {
+function summary(r: SummaryRow): DesignSummary {
   return {
     id: r.id,
     name: r.name,
@@ -76,33 +85,58 @@ export class DesignService {
     private readonly config: ServerConfig,
     private readonly mailer: Mailer,
     private readonly activity: ActivityService,
+    private readonly access: AccessService,
   ) {}
 
-  /** One round trip: the page with the total alongside (a count only when the page is past the end). */
-  async list(workspaceId: number, q: { sort: DesignSort; order: 'asc' | 'desc'; limit: number; offset: number; q?: string }): Promise<Page<DesignSummary>> {
-    const em = this.orm.em.fork();
-    const filter = q.q ? ' and d.name ilike ?' : '';
-    const params: unknown[] = q.q ? [workspaceId, containsPattern(q.q)] : [workspaceId];
+  /**
+   * A page of a workspace's designs for one of its members (viewer or higher; otherwise 404 as AccessService says).
+   * One round trip: the caller's membership, the page and the total alongside; only a page past the end (no rows
+   * at all) asks again, for the role and the count.
+   */
+  async list(
+    userId: number,
+    workspaceId: number,
+    q: { sort: DesignSort; order: 'asc' | 'desc'; limit: number; offset: number; q?: string },
+  ): Promise<Page<DesignSummary>> {
     const dir = q.order === 'asc' ? 'asc' : 'desc';
-    const rows = await queryRows<Row & { total: string }>(
-      em,
-      `select ${COLUMNS}, count(*) over () as total from designs d left join users u on u.id = d.updated_by_id
-       where d.workspace_id = ?${filter} order by ${ORDER[q.sort]} ${dir}, d.id ${dir} limit ? offset ?`,
-      [...params, q.limit, q.offset],
+    const params: (string | number)[] = [userId, workspaceId, q.limit, q.offset];
+    if (q.q) params.push(containsPattern(q.q));
+    const filter = q.q ? ' and d.name ilike $5' : '';
+    // Without designs (or without a matching one) the member's row still comes back, with d.* null.
+    const rows = await preparedRows<Found & Partial<SummaryRow> & { total: string }>(
+      this.orm,
+      `select a.workspace_id, a.role, ${SUMMARY_COLUMNS}, count(d.id) over () as total
+       from (select w.id as workspace_id, m.role from workspaces w
+             left join memberships m on m.workspace_id = w.id and m.user_id = $1 where w.id = $2) a
+       left join designs d on d.workspace_id = a.workspace_id and a.role is not null${filter}
+       left join users u on u.id = d.updated_by_id
+       order by ${ORDER[q.sort]} ${dir}, d.id ${dir} limit $3 offset $4`,
+      params,
     );
-    let total = Number(rows[0]?.total ?? 0);
-    if (!rows.length && q.offset > 0) {
-      total = Number((await queryRow<{ n: string }>(em, `select count(*) as n from designs d where d.workspace_id = ?${filter}`, params))?.n ?? 0);
+    if (!rows.length) {
+      await this.access.workspace(userId, workspaceId, 'viewer');
+      const n = await queryRow<{ n: string }>(
+        this.orm.em.fork(),
+        `select count(*) as n from designs d where d.workspace_id = ?${q.q ? ' and d.name ilike ?' : ''}`,
+        q.q ? [workspaceId, containsPattern(q.q)] : [workspaceId],
+      );
+      return { items: [], total: Number(n?.n ?? 0) };
     }
-    return { items: rows.map(summary), total };
+    this.access.decide('workspace', userId, rows[0], 'viewer');
+    const items = rows.filter((r): r is typeof r & SummaryRow => r.id != null).map(summary);
+    return { items, total: Number(rows[0]!.total) };
   }
 
+  /** One design for a member of its workspace (viewer or higher): the role check and the read in one round trip. */
+  async read(userId: number, designId: number): Promise<DesignDetail> {
+    const row = await preparedRow<Row>(this.orm, DETAIL, [userId, designId]);
+    const access = this.access.decide('design', userId, row, 'viewer');
+    return detail(row!, access.role);
+  }
+
+  /** The design as it is now, for a caller whose access was checked already. */
   async get(access: Access, designId: number): Promise<DesignDetail> {
-    const row = await queryRow<Row>(
-      this.orm.em.fork(),
-      `select ${COLUMNS}, d.document from designs d left join users u on u.id = d.updated_by_id where d.id = ?`,
-      [designId],
-    );
+    const row = await preparedRow<Row>(this.orm, DETAIL, [access.userId, designId]);
     if (!row) throw new ApiError('not-found', 'No such design');
     return detail(row, access.role);
   }

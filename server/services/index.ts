@@ -56,9 +56,10 @@ export function createServices(deps: ServiceDeps): Services {
   // One solver thread for sweeps answered by superposition, so the unit solves never hold up requests.
   const pool = new SolverPool(1);
   const sweepEvents = new SweepEvents(orm);
-  const designs = new DesignService(orm, config, mailer, activity);
+  const access = new AccessService(orm);
+  const designs = new DesignService(orm, config, mailer, activity, access);
   return {
-    access: new AccessService(orm),
+    access,
     activity,
     auth,
     workspaces,

@@ -43,6 +43,40 @@ describe('designs', () => {
     expect(bad.body.error.field).toBe('sort');
   });
 
+  it('lists an empty workspace, a page past the end, and refuses outsiders and unknown workspaces alike with 404', async () => {
+    const owner = team.owner;
+    const made = await call(t.base, 'POST', '/api/workspaces', { token: owner.token, body: { name: 'Empty lab' } });
+    expect(made.status).toBe(201);
+    const empty = await call(t.base, 'GET', `/api/workspaces/${made.body.id}/designs`, { token: owner.token });
+    expect(empty.status).toBe(200);
+    expect(empty.body).toEqual({ items: [], total: 0 });
+    expect((await call(t.base, 'GET', `/api/workspaces/${made.body.id}/designs?offset=5`, { token: owner.token })).body).toEqual({ items: [], total: 0 });
+
+    await createDesign('Past the end');
+    const all = await call(t.base, 'GET', `/api/workspaces/${team.wid}/designs`, { token: team.viewer.token });
+    const past = await call(t.base, 'GET', `/api/workspaces/${team.wid}/designs?offset=${all.body.total + 10}`, { token: team.viewer.token });
+    expect(past.status).toBe(200);
+    expect(past.body).toEqual({ items: [], total: all.body.total });
+    const filtered = await call(t.base, 'GET', `/api/workspaces/${team.wid}/designs?q=past%20the&offset=3`, { token: team.viewer.token });
+    expect(filtered.body).toEqual({ items: [], total: 1 });
+
+    const outsider = await call(t.base, 'GET', `/api/workspaces/${made.body.id}/designs`, { token: team.viewer.token });
+    const unknown = await call(t.base, 'GET', '/api/workspaces/2000000000/designs', { token: team.viewer.token });
+    const unknownPast = await call(t.base, 'GET', '/api/workspaces/2000000000/designs?offset=10', { token: team.viewer.token });
+    for (const r of [outsider, unknown, unknownPast]) {
+      expect(r.status).toBe(404);
+      expect(r.body.error.code).toBe('not-found');
+    }
+    expect(outsider.body).toEqual(unknown.body);
+    const design = await call(t.base, 'GET', `/api/designs/${all.body.items[0].id}`, { token: owner.token });
+    expect(design.status).toBe(200);
+    expect(design.body.role).toBe('owner');
+    const notMine = await call(t.base, 'GET', `/api/designs/${all.body.items[0].id}`, { token: team.outsider.token });
+    const missing = await call(t.base, 'GET', '/api/designs/2000000000', { token: owner.token });
+    expect(notMine.status).toBe(404);
+    expect(notMine.body).toEqual(missing.body);
+  });
+
   it('refuses an invalid design with 400 naming the field, and nothing is stored', async () => {
     const doc = validDocument();
     (doc['ports'] as { potential: unknown }[])[1]!.potential = 'high';
