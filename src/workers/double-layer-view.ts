@@ -5,7 +5,7 @@
  * check of the closed-form potential against the numerical Poisson–Boltzmann solution.
  */
 import { doubleLayer, solvePoissonBoltzmann, gouyChapmanPotential, type DoubleLayerReport } from '../../solver/double-layer';
-import type { PlotSeries } from '../app/features/analysis/series-plot';
+import type { PlotSeries } from '../app/features/analysis/plot-series';
 
 export interface EdlInputs {
   ionicStrength: number;

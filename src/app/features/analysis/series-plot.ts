@@ -3,15 +3,9 @@ import * as d3 from 'd3';
 import type { Dimension } from '../../ui/units';
 import { rangeTicks } from '../fields/colour-bar-ticks';
 
-/** One line of a plot: x and y in SI; NaN leaves a gap. */
-export interface PlotSeries {
-  label: string;
-  x: ArrayLike<number>;
-  y: ArrayLike<number>;
-  /** Line style: the first series solid in the primary colour, others by their own. */
-  tone?: 'primary' | 'tertiary' | 'secondary' | 'neutral';
-  dashed?: boolean;
-}
+import type { PlotSeries } from './plot-series';
+
+export type { PlotSeries } from './plot-series';
 
 const M = { left: 50, right: 14, top: 8, bottom: 36 };
 
