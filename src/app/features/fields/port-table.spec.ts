@@ -23,7 +23,7 @@ describe('PortTable', () => {
   it('shows each port’s mean speed with its unit, from the one unit formatter', async () => {
     const el = await render(rows);
     const headers = Array.from(el.querySelectorAll('th')).map((h) => h.textContent?.replace('info', '').trim());
-    expect(headers).toEqual(['Port', 'Potential', 'Current', 'Flow rate', 'Mean speed']);
+    expect(headers).toEqual(['Port', 'Potential', 'Current', 'Flow', 'Speed']);
     expect(cells(el, 'port-mean-speed')).toEqual(['1 mm/s', '1 mm/s']);
     expect(cells(el, 'port-flow')).toEqual(['60 nL/min', '-60 nL/min']);
     expect(el.querySelector('[data-testid="port-mean-speed"]')?.getAttribute('data-value')).toBe(String(Q / (5e-5 * 2e-5)));

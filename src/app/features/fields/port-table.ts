@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { PortResult } from '../../../../shared/result';
@@ -19,7 +18,7 @@ export interface PortRow extends PortResult {
  */
 @Component({
   selector: 'osm-port-table',
-  imports: [MatTableModule, MatTooltipModule, MatIconModule, QuantityPipe],
+  imports: [MatTableModule, MatTooltipModule, QuantityPipe],
   template: `
     <table mat-table [dataSource]="ports()" class="dense-table" aria-label="Ports: potential, current, flow rate and mean speed" data-testid="port-results">
       <ng-container matColumnDef="port">
@@ -35,18 +34,18 @@ export interface PortRow extends PortResult {
         <td mat-footer-cell *matFooterCellDef></td>
       </ng-container>
       <ng-container matColumnDef="current">
-        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Positive when current enters the fluid through the port">Current<mat-icon class="info" aria-hidden="true">info</mat-icon></th>
+        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Positive when current enters the fluid through the port">Current</th>
         <td mat-cell *matCellDef="let p" class="num" data-testid="port-current" [attr.data-value]="p.current">{{ p.current | quantity: 'current' : 4 }}</td>
         <td mat-footer-cell *matFooterCellDef class="num" data-testid="current-sum" [attr.data-value]="currents().sum" [matTooltip]="balanceNote(currents(), 'current')">{{ balanceText(currents(), 'current') }}</td>
       </ng-container>
       <ng-container matColumnDef="flowRate">
-        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Positive when liquid enters the fluid through the port">Flow rate<mat-icon class="info" aria-hidden="true">info</mat-icon></th>
+        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Flow rate, positive when liquid enters the fluid through the port">Flow</th>
         <td mat-cell *matCellDef="let p" class="num" data-testid="port-flow">{{ p.flowRate | quantity: 'flowRate' : 4 }}</td>
         <td mat-footer-cell *matFooterCellDef class="num" data-testid="flow-sum" [matTooltip]="balanceNote(flows(), 'flowRate')">{{ balanceText(flows(), 'flowRate') }}</td>
       </ng-container>
       <ng-container matColumnDef="meanSpeed">
-        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Mean speed in the channel leg the port feeds: |flow rate| / (port width × depth)">Mean speed<mat-icon class="info" aria-hidden="true">info</mat-icon></th>
-        <td mat-cell *matCellDef="let p" class="num" data-testid="port-mean-speed" [attr.data-value]="p.meanSpeed ?? null">{{ p.meanSpeed | quantity: 'velocity' : 4 }}</td>
+        <th mat-header-cell *matHeaderCellDef class="num" matTooltip="Mean speed in the channel leg the port feeds: |flow rate| / (port width × depth)">Speed</th>
+        <td mat-cell *matCellDef="let p" class="num" data-testid="port-mean-speed" [attr.data-value]="p.meanSpeed ?? null">{{ p.meanSpeed | quantity: 'velocity' : 3 }}</td>
         <td mat-footer-cell *matFooterCellDef></td>
       </ng-container>
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
@@ -55,12 +54,12 @@ export interface PortRow extends PortResult {
     </table>
     <p class="caption muted">
       Current and flow rate count positive <strong>into</strong> the fluid through the port, negative out of it; Σ is
-      zero up to the solver's tolerance (Kirchhoff, mass balance). Mean speed is that of the channel leg the port
-      feeds; – where a stored run predates it.
+      zero up to the solver's tolerance (Kirchhoff, mass balance). Speed is the mean speed in the channel leg the
+      port feeds; – where a stored run predates it.
     </p>
   `,
   styles: `
-    /* Five columns in the side panel: a narrow window scrolls the table sideways rather than clipping it. */
+    /* Five columns in the side panel; a narrower window scrolls the table sideways rather than clipping it. */
     :host { display: block; overflow-x: auto; }
     table { font-size: 12.5px; }
     .mat-mdc-table .mat-mdc-row, .mat-mdc-table .mat-mdc-header-row, .mat-mdc-table .mat-mdc-footer-row { height: 30px; }
@@ -68,7 +67,6 @@ export interface PortRow extends PortResult {
     .mat-mdc-cell:first-of-type, .mat-mdc-header-cell:first-of-type, .mat-mdc-footer-cell:first-of-type { padding-left: 6px; }
     .num { text-align: right; font-variant-numeric: tabular-nums; }
     .id { font-weight: 600; }
-    .info { font-size: 14px; width: 14px; height: 14px; vertical-align: -2px; margin-left: 2px; color: var(--mat-sys-on-surface-variant); }
     .sum td { font-weight: 500; border-top: 1px solid var(--mat-sys-outline); }
     .caption { font-size: 12px; margin: 4px 0 0; line-height: 1.35; }
   `,
