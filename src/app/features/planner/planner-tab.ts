@@ -85,7 +85,7 @@ export class PlannerTab {
     const r = this.responses();
     return r && r.key === this.key() ? r.basis : null;
   });
-  protected readonly spec = computed(() => MAPS[this.mapId()]);
+
   protected readonly outline = fluidOutlineOf(() => this.document().shapes);
   protected readonly mapPorts = computed<MapPort[]>(() => this.document().ports.map((p) => ({ id: p.id, from: p.from, to: p.to })));
   protected readonly rowProblems = computed(() => this.targets().map(rowProblem));
@@ -105,9 +105,12 @@ export class PlannerTab {
     },
     null,
   );
+  /** The quantity of the map shown (it follows the toggle once its recombination arrives). */
+  protected readonly spec = computed(() => MAPS[this.live()?.map ?? this.mapId()]);
+  /** The newest recombined map (the previous map stays up until a new one arrives, so the view keeps its zoom). */
   protected readonly values = computed(() => {
     const l = this.live();
-    return l?.outcome.ok && l.basis === this.ready()?.id && l.map === this.mapId() ? l.outcome.values : null;
+    return l?.outcome.ok && l.basis === this.ready()?.id ? l.outcome.values : null;
   });
   /** Round trip of the last slider step (page to worker and back), and the worker's share of it. */
   protected readonly slideMs = computed(() => {
