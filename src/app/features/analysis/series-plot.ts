@@ -1,8 +1,10 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, afterNextRender, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import * as d3 from 'd3';
 import type { Dimension } from '../../ui/units';
 import { rangeTicks } from '../fields/colour-bar-ticks';
-
+import { plotArea } from './plot-area';
+import { PlotFrame } from './plot-frame';
+import { linePath } from './plot-line';
 import type { PlotSeries } from './plot-series';
 
 export type { PlotSeries } from './plot-series';
@@ -16,6 +18,7 @@ const M = { left: 50, right: 14, top: 8, bottom: 36 };
  */
 @Component({
   selector: 'osm-series-plot',
+  imports: [PlotFrame],
   template: `
     @if (series().length > 1) {
       <div class="legend" aria-hidden="true">
@@ -24,39 +27,20 @@ const M = { left: 50, right: 14, top: 8, bottom: 36 };
         }
       </div>
     }
-    <svg [attr.width]="width()" [attr.height]="svgHeight()" role="img" [attr.aria-label]="ariaLabel()">
-      <g [attr.transform]="'translate(' + left() + ',' + m.top + ')'">
-        @for (t of yTicks().ticks; track t.value) {
-          <line class="grid" x1="0" [attr.x2]="innerW()" [attr.y1]="y()(t.value)" [attr.y2]="y()(t.value)" />
-          <text class="tick" x="-6" [attr.y]="y()(t.value)" text-anchor="end" dominant-baseline="central">{{ t.label }}</text>
-        }
-        @for (t of xTicks().ticks; track t.value) {
-          <line class="tickmark" [attr.x1]="x()(t.value)" [attr.x2]="x()(t.value)" [attr.y1]="innerH()" [attr.y2]="innerH() + 4" />
-          <text class="tick" [attr.x]="x()(t.value)" [attr.y]="innerH() + 15" text-anchor="middle">{{ t.label }}</text>
-        }
-        <line class="axis" x1="0" [attr.x2]="innerW()" [attr.y1]="innerH()" [attr.y2]="innerH()" />
-        <line class="axis" x1="0" x2="0" y1="0" [attr.y2]="innerH()" />
-        @if (zeroY(); as z) {
-          <line class="zero" x1="0" [attr.x2]="innerW()" [attr.y1]="z" [attr.y2]="z" />
-        }
+    <svg [attr.width]="area.width()" [attr.height]="svgHeight()" role="img" [attr.aria-label]="ariaLabel()">
+      <g [attr.transform]="'translate(' + left() + ',' + m.top + ')'" osmPlotFrame [x]="x()" [y]="y()" [xTicks]="xTicks().ticks" [yTicks]="yTicks().ticks">
         @for (p of paths(); track p.label) {
           <path class="line" [class]="'line tone-' + p.tone" [class.dashed]="p.dashed" [attr.d]="p.d" [attr.data-series]="p.label" />
         }
-        <text class="label" [attr.x]="innerW()" [attr.y]="innerH() + 31" text-anchor="end">{{ xTitle() }}{{ xTicks().unit ? ' (' + xTicks().unit + ')' : '' }}</text>
-        <text class="label" [attr.transform]="'translate(' + (12 - left()) + ',' + innerH() / 2 + ') rotate(-90)'" text-anchor="middle">
+        <text class="label" [attr.x]="area.innerW()" [attr.y]="area.innerH() + 31" text-anchor="end">{{ xTitle() }}{{ xTicks().unit ? ' (' + xTicks().unit + ')' : '' }}</text>
+        <text class="label" [attr.transform]="'translate(' + (12 - left()) + ',' + area.innerH() / 2 + ') rotate(-90)'" text-anchor="middle">
           {{ yTitle() }}{{ yTicks().unit ? ' (' + yTicks().unit + ')' : '' }}
         </text>
       </g>
     </svg>
   `,
+  styleUrl: './plot.css',
   styles: `
-    :host { display: block; min-width: 0; }
-    svg { display: block; font-size: 11px; }
-    .grid { stroke: var(--mat-sys-outline-variant); stroke-width: 1; }
-    .zero { stroke: var(--mat-sys-outline); stroke-dasharray: 3 3; }
-    .axis, .tickmark { stroke: var(--mat-sys-on-surface-variant); }
-    .tick { fill: var(--mat-sys-on-surface-variant); font-variant-numeric: tabular-nums; }
-    .label { fill: var(--mat-sys-on-surface); }
     .line { fill: none; stroke-width: 1.75px; stroke-linejoin: round; }
     .line.dashed { stroke-dasharray: 6 3; }
     .tone-primary { stroke: var(--mat-sys-primary); }
@@ -70,8 +54,6 @@ const M = { left: 50, right: 14, top: 8, bottom: 36 };
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SeriesPlot {
-  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
-
   readonly series = input.required<ReadonlyArray<PlotSeries>>();
   readonly xTitle = input.required<string>();
   readonly xDimension = input.required<Dimension>();
@@ -82,13 +64,11 @@ export class SeriesPlot {
   readonly yFromZero = input(false);
 
   protected readonly m = M;
-  protected readonly width = signal(480);
+  protected readonly area = plotArea(M, 480, () => this.svgHeight(), () => this.left());
   /** Room for the y tick labels (about 6.2 px a character) and the axis title. */
   protected readonly left = computed(() => Math.max(M.left, 30 + 6.2 * Math.max(0, ...this.yTicks().ticks.map((t) => t.label.length))));
-  protected readonly innerW = computed(() => Math.max(40, this.width() - this.left() - M.right));
   /** The whole height less the legend's row above the plot. */
   protected readonly svgHeight = computed(() => this.height() - (this.series().length > 1 ? 18 : 0));
-  protected readonly innerH = computed(() => Math.max(40, this.svgHeight() - M.top - M.bottom));
   protected readonly ariaLabel = computed(() => `${this.yTitle()} against ${this.xTitle()}: ${this.series().map((s) => s.label).join(', ')}`);
 
   private readonly extents = computed(() => {
@@ -106,50 +86,26 @@ export class SeriesPlot {
     return { x: pad(x0, x1), y: pad(y0, y1) };
   });
 
-  protected readonly x = computed(() => d3.scaleLinear().domain(this.extents().x).range([0, this.innerW()]));
+  protected readonly x = computed(() => d3.scaleLinear().domain(this.extents().x).range([0, this.area.innerW()]));
   /** The y scale's domain alone (its ticks set the left margin, which sets the x range: no cycle). */
   private readonly yDomain = computed(() => d3.scaleLinear().domain(this.extents().y).nice(5).domain());
-  protected readonly y = computed(() => d3.scaleLinear().domain(this.yDomain()).range([this.innerH(), 0]));
+  protected readonly y = computed(() => d3.scaleLinear().domain(this.yDomain()).range([this.area.innerH(), 0]));
   protected readonly xTicks = computed(() => {
     const [lo, hi] = this.x().domain();
-    return rangeTicks(lo, hi, this.xDimension(), Math.max(2, Math.round(this.innerW() / 90)));
+    return rangeTicks(lo, hi, this.xDimension(), Math.max(2, Math.round(this.area.innerW() / 90)));
   });
   protected readonly yTicks = computed(() => {
     const [lo, hi] = this.yDomain();
     return rangeTicks(lo, hi, this.yDimension(), 4);
   });
-  protected readonly zeroY = computed(() => {
-    const [lo, hi] = this.y().domain();
-    return lo < 0 && hi > 0 ? this.y()(0) : null;
-  });
   protected readonly paths = computed(() => {
     const x = this.x(), y = this.y();
     const tones = ['primary', 'tertiary', 'secondary', 'neutral'] as const;
-    return this.series().map((s, k) => {
-      const pts = Array.from({ length: s.x.length }, (_, i) => [s.x[i], s.y[i]] as [number, number]);
-      const d = d3
-        .line<[number, number]>()
-        .defined((q) => Number.isFinite(q[0]) && Number.isFinite(q[1]))
-        .x((q) => x(q[0]))
-        .y((q) => y(q[1]))(pts);
-      return { label: s.label, tone: s.tone ?? tones[k % tones.length], dashed: !!s.dashed, d: d ?? '' };
-    });
+    return this.series().map((s, k) => ({
+      label: s.label,
+      tone: s.tone ?? tones[k % tones.length],
+      dashed: !!s.dashed,
+      d: linePath(s.x, s.y, x, y),
+    }));
   });
-
-  constructor() {
-    const destroyRef = inject(DestroyRef);
-    afterNextRender(() => {
-      const el = this.host.nativeElement;
-      const measure = () => {
-        const w = Math.floor(el.getBoundingClientRect().width);
-        if (w > 0) this.width.set(w);
-      };
-      measure();
-      if (typeof ResizeObserver !== 'undefined') {
-        const ro = new ResizeObserver(measure);
-        ro.observe(el);
-        destroyRef.onDestroy(() => ro.disconnect());
-      }
-    });
-  }
 }

@@ -1,13 +1,11 @@
 import {
   ChangeDetectionStrategy,
   Component,
-  DestroyRef,
   ElementRef,
   afterNextRender,
   afterRenderEffect,
   computed,
   effect,
-  inject,
   input,
   output,
   signal,
@@ -19,10 +17,12 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import * as d3 from 'd3';
 import type { SolveFields } from '../../../../shared/result';
+import { hostSize } from '../../ui/host-size';
 import { formatLength, scaleBarLength } from '../../ui/layout-geometry';
-import { fieldImage } from './field-image';
 import type { ColourRange } from './field-maps';
 import { insideFluid, type Vec } from './field-sampling';
+import { drawFieldImage, fieldCanvas, prepareCanvas, ringsClip } from './map-canvas';
+import { fitView, ringsBounds, toScreen, toWorld, type Bounds, type MapView } from './map-view';
 import { traceStreamlines } from './streamlines';
 
 /** A port drawn on the map: its cap as a segment (m). */
@@ -40,13 +40,6 @@ export interface MapMarker {
 }
 
 export type CutLine = readonly [Vec, Vec];
-
-/** Screen mapping: X = x + k·wx, Y = y − k·wy (wx, wy in metres, k in px per metre). */
-interface View {
-  k: number;
-  x: number;
-  y: number;
-}
 
 /** Room around the fitted layout for port labels (px). */
 const MARGIN = 30;
@@ -133,8 +126,6 @@ const UM = 1e6;
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class FieldMap {
-  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
-
   readonly fields = input.required<SolveFields>();
   readonly values = input.required<Float32Array>();
   readonly range = input.required<ColourRange>();
@@ -158,7 +149,7 @@ export class FieldMap {
   private readonly canvas = viewChild.required<ElementRef<HTMLCanvasElement>>('canvas');
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
 
-  protected readonly size = signal({ w: 600, h: 360 });
+  protected readonly size = hostSize({ w: 600, h: 360 });
   private readonly zoomT = signal<d3.ZoomTransform>(d3.zoomIdentity);
   /** The zoom at which the streamlines were traced (they are traced again when it changes a lot). */
   private readonly streamZoom = signal(1);
@@ -167,32 +158,22 @@ export class FieldMap {
   private zoom: d3.ZoomBehavior<SVGSVGElement, unknown> | null = null;
 
   /** Layout bounds (m): the outline's, or the grid's less its one-cell margin. */
-  private readonly bounds = computed<[number, number, number, number]>(
+  private readonly bounds = computed<Bounds>(
     () => {
-      const rings = this.outline();
-      if (rings.length > 0) {
-        let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
-        for (const ring of rings) for (const [x, y] of ring) {
-          x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y);
-        }
-        return [x0, y0, x1, y1];
-      }
       const f = this.fields();
-      return [f.x0 + f.spacing, f.y0 + f.spacing, f.x0 + (f.nx - 1) * f.spacing, f.y0 + (f.ny - 1) * f.spacing];
+      return ringsBounds(this.outline()) ?? [f.x0 + f.spacing, f.y0 + f.spacing, f.x0 + (f.nx - 1) * f.spacing, f.y0 + (f.ny - 1) * f.spacing];
     },
     // The same numbers again (a new outline of the same layout) keep the engineer's zoom.
     { equal: (a, b) => a.every((v, k) => v === b[k]) },
   );
 
   /** The view that fits the layout (zoom 1). */
-  private readonly base = computed<View>(() => {
-    const [x0, y0, x1, y1] = this.bounds();
+  private readonly base = computed<MapView>(() => {
     const { w, h } = this.size();
-    const k = Math.min((w - 2 * MARGIN) / Math.max(x1 - x0, 1e-12), (h - 2 * MARGIN) / Math.max(y1 - y0, 1e-12));
-    return { k, x: (w - k * (x1 - x0)) / 2 - k * x0, y: (h + k * (y1 - y0)) / 2 + k * y0 };
+    return fitView(this.bounds(), w, h, MARGIN);
   });
 
-  protected readonly view = computed<View>(() => {
+  protected readonly view = computed<MapView>(() => {
     const b = this.base(), t = this.zoomT();
     return { k: b.k * t.k, x: t.x + t.k * b.x, y: t.y + t.k * b.y };
   });
@@ -286,7 +267,7 @@ export class FieldMap {
   protected readonly portMarks = computed(() => {
     const v = this.view(), f = this.fields(), rings = this.outline();
     return this.ports().map((p) => {
-      const [x1, y1] = screen(v, p.from), [x2, y2] = screen(v, p.to);
+      const [x1, y1] = toScreen(v, p.from), [x2, y2] = toScreen(v, p.to);
       const mx = (p.from[0] + p.to[0]) / 2, my = (p.from[1] + p.to[1]) / 2;
       const len = Math.hypot(p.to[0] - p.from[0], p.to[1] - p.from[1]) || 1;
       let nx = -(p.to[1] - p.from[1]) / len, ny = (p.to[0] - p.from[0]) / len;
@@ -303,7 +284,7 @@ export class FieldMap {
   protected readonly markerMarks = computed(() => {
     const v = this.view();
     return this.markers().map((m) => {
-      const [x, y] = screen(v, m.at);
+      const [x, y] = toScreen(v, m.at);
       return { x, y, label: m.label, title: m.title };
     });
   });
@@ -312,14 +293,14 @@ export class FieldMap {
     const c = this.draft() ?? this.cut();
     if (!c) return null;
     const v = this.view();
-    const [x1, y1] = screen(v, c[0]), [x2, y2] = screen(v, c[1]);
+    const [x1, y1] = toScreen(v, c[0]), [x2, y2] = toScreen(v, c[1]);
     return { x1, y1, x2, y2 };
   });
 
   protected readonly probeMark = computed(() => {
     const p = this.probe();
     if (!p) return null;
-    const [x, y] = screen(this.view(), p);
+    const [x, y] = toScreen(this.view(), p);
     return { x, y };
   });
 
@@ -330,32 +311,10 @@ export class FieldMap {
     return { px: (len / UM) * v.k, label: formatLength(len) };
   });
 
-  private readonly image = computed(() => {
-    const f = this.fields();
-    if (typeof document === 'undefined') return null;
-    const off = document.createElement('canvas');
-    off.width = f.nx;
-    off.height = f.ny;
-    const ctx = off.getContext('2d');
-    if (!ctx) return null;
-    ctx.putImageData(new ImageData(fieldImage(this.values(), f.nx, f.ny, this.range()), f.nx, f.ny), 0, 0);
-    return off;
-  });
+  private readonly image = computed(() => fieldCanvas(this.fields(), this.values(), this.range()));
 
   constructor() {
-    const destroyRef = inject(DestroyRef);
     afterNextRender(() => {
-      const el = this.host.nativeElement;
-      const measure = () => {
-        const r = el.getBoundingClientRect();
-        if (r.width > 0 && r.height > 0) this.size.set({ w: Math.floor(r.width), h: Math.floor(r.height) });
-      };
-      measure();
-      if (typeof ResizeObserver !== 'undefined') {
-        const ro = new ResizeObserver(measure);
-        ro.observe(el);
-        destroyRef.onDestroy(() => ro.disconnect());
-      }
       const zoom = d3
         .zoom<SVGSVGElement, unknown>()
         .scaleExtent([0.5, 400])
@@ -398,38 +357,14 @@ export class FieldMap {
   }
 
   private draw(): void {
-    const canvas = this.canvas().nativeElement;
     const { w, h } = this.size();
     const image = this.image();
     const v = this.view(), f = this.fields(), rings = this.outline();
-    const dpr = typeof devicePixelRatio === 'number' ? devicePixelRatio : 1;
-    if (canvas.width !== Math.round(w * dpr) || canvas.height !== Math.round(h * dpr)) {
-      canvas.width = Math.round(w * dpr);
-      canvas.height = Math.round(h * dpr);
-      canvas.style.width = `${w}px`;
-      canvas.style.height = `${h}px`;
-    }
-    const ctx = image ? canvas.getContext('2d') : null;
+    const ctx = prepareCanvas(this.canvas().nativeElement, w, h);
     if (!ctx || !image) return;
-    ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
-    ctx.clearRect(0, 0, w, h);
     ctx.save();
-    if (rings.length > 0) {
-      const clip = new Path2D();
-      for (const ring of rings) {
-        ring.forEach((p, k) => {
-          const [X, Y] = screen(v, p);
-          if (k === 0) clip.moveTo(X, Y);
-          else clip.lineTo(X, Y);
-        });
-        clip.closePath();
-      }
-      ctx.clip(clip, 'evenodd');
-    }
-    // Smooth when cells are larger than a few pixels; crisp otherwise.
-    ctx.imageSmoothingEnabled = v.k * f.spacing > 3;
-    const [left, top] = screen(v, [f.x0, f.y0 + f.ny * f.spacing]);
-    ctx.drawImage(image, left, top, f.nx * f.spacing * v.k, f.ny * f.spacing * v.k);
+    if (rings.length > 0) ctx.clip(ringsClip(rings, v), 'evenodd');
+    drawFieldImage(ctx, image, f, v);
     ctx.restore();
   }
 
@@ -437,8 +372,7 @@ export class FieldMap {
 
   private world(event: MouseEvent): Vec {
     const r = this.svg().nativeElement.getBoundingClientRect();
-    const v = this.view();
-    return [(event.clientX - r.left - v.x) / v.k, (v.y - (event.clientY - r.top)) / v.k];
+    return toWorld(this.view(), event.clientX - r.left, event.clientY - r.top);
   }
 
   protected onMove(event: PointerEvent): void {
@@ -467,10 +401,6 @@ export class FieldMap {
     const v = this.view();
     if (Math.hypot(line[1][0] - line[0][0], line[1][1] - line[0][1]) * v.k >= 4) this.cutChange.emit(line);
   }
-}
-
-function screen(v: View, p: Vec): [number, number] {
-  return [v.x + v.k * p[0], v.y - v.k * p[1]];
 }
 
 /** Path data of rings (m) in micrometres. */

@@ -1,9 +1,11 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, afterNextRender, afterRenderEffect, computed, inject, input, output, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, afterRenderEffect, computed, input, output, signal, viewChild } from '@angular/core';
 import type { SolveFields } from '../../../../shared/result';
-import { fieldImage } from '../fields/field-image';
+import { hostSize } from '../../ui/host-size';
 import type { ColourRange } from '../fields/field-maps';
 import type { MapPort } from '../fields/field-map';
 import type { Vec } from '../fields/field-sampling';
+import { drawFieldImage, fieldCanvas, prepareCanvas, ringsClip } from '../fields/map-canvas';
+import { fitView, ringsBounds, toScreen, toWorld } from '../fields/map-view';
 
 export type DrawMode = 'line' | 'region' | 'detector' | null;
 
@@ -64,8 +66,6 @@ const MARGIN = 20;
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class TracerMap {
-  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
-
   readonly outline = input.required<ReadonlyArray<ReadonlyArray<Vec>>>();
   readonly ports = input<ReadonlyArray<MapPort>>([]);
   readonly fields = input<SolveFields | null>(null);
@@ -85,26 +85,17 @@ export class TracerMap {
   private readonly baseCanvas = viewChild.required<ElementRef<HTMLCanvasElement>>('base');
   private readonly dotsCanvas = viewChild.required<ElementRef<HTMLCanvasElement>>('dots');
   private readonly svg = viewChild.required<ElementRef<SVGSVGElement>>('svg');
-  protected readonly size = signal({ w: 600, h: 320 });
+  protected readonly size = hostSize({ w: 600, h: 320 });
   private readonly draft = signal<[Vec, Vec] | null>(null);
 
-  /** Fit of the layout: X = ox + k x, Y = oy − k y. */
+  /** The focus or the layout, fitted to the box. */
   private readonly view = computed(() => {
-    let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
-    const focus = this.focus();
-    if (focus) [x0, y0, x1, y1] = focus;
-    else for (const ring of this.outline()) for (const [x, y] of ring) {
-      x0 = Math.min(x0, x); y0 = Math.min(y0, y); x1 = Math.max(x1, x); y1 = Math.max(y1, y);
-    }
-    if (!Number.isFinite(x0)) [x0, y0, x1, y1] = [0, 0, 1e-3, 1e-3];
     const { w, h } = this.size();
-    const k = Math.min((w - 2 * MARGIN) / Math.max(x1 - x0, 1e-12), (h - 2 * MARGIN) / Math.max(y1 - y0, 1e-12));
-    return { k, ox: (w - k * (x1 - x0)) / 2 - k * x0, oy: (h + k * (y1 - y0)) / 2 + k * y0 };
+    return fitView(this.focus() ?? ringsBounds(this.outline()) ?? [0, 0, 1e-3, 1e-3], w, h, MARGIN);
   });
 
   private screen(p: Vec): [number, number] {
-    const v = this.view();
-    return [v.ox + v.k * p[0], v.oy - v.k * p[1]];
+    return toScreen(this.view(), p);
   }
 
   protected readonly outlinePath = computed(() =>
@@ -148,78 +139,36 @@ export class TracerMap {
 
   private readonly image = computed(() => {
     const f = this.fields(), v = this.values(), r = this.range();
-    if (!f || !v || !r || typeof document === 'undefined') return null;
-    const off = document.createElement('canvas');
-    off.width = f.nx;
-    off.height = f.ny;
-    const ctx = off.getContext('2d');
-    if (!ctx) return null;
-    ctx.putImageData(new ImageData(fieldImage(v, f.nx, f.ny, r), f.nx, f.ny), 0, 0);
-    return off;
+    return f && v && r ? fieldCanvas(f, v, r) : null;
   });
 
   constructor() {
-    const destroyRef = inject(DestroyRef);
-    afterNextRender(() => {
-      const el = this.host.nativeElement;
-      const measure = () => {
-        const r = el.getBoundingClientRect();
-        if (r.width > 0 && r.height > 0) this.size.set({ w: Math.floor(r.width), h: Math.floor(r.height) });
-      };
-      measure();
-      if (typeof ResizeObserver !== 'undefined') {
-        const ro = new ResizeObserver(measure);
-        ro.observe(el);
-        destroyRef.onDestroy(() => ro.disconnect());
-      }
-    });
     afterRenderEffect(() => this.drawBase());
     afterRenderEffect(() => this.drawDots());
   }
 
-  private prepare(canvas: HTMLCanvasElement): CanvasRenderingContext2D | null {
-    const { w, h } = this.size();
-    const dpr = typeof devicePixelRatio === 'number' ? devicePixelRatio : 1;
-    if (canvas.width !== Math.round(w * dpr) || canvas.height !== Math.round(h * dpr)) {
-      canvas.width = Math.round(w * dpr);
-      canvas.height = Math.round(h * dpr);
-      canvas.style.width = `${w}px`;
-      canvas.style.height = `${h}px`;
-    }
-    const ctx = canvas.getContext('2d');
-    if (!ctx) return null;
-    ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
-    ctx.clearRect(0, 0, w, h);
-    return ctx;
-  }
-
   private drawBase(): void {
-    const ctx = this.prepare(this.baseCanvas().nativeElement);
+    const { w, h } = this.size();
+    const ctx = prepareCanvas(this.baseCanvas().nativeElement, w, h);
     const image = this.image(), f = this.fields(), v = this.view();
     if (!ctx) return;
-    const clip = new Path2D();
-    for (const ring of this.outline()) {
-      ring.forEach((p, k) => (k ? clip.lineTo(...this.screen(p)) : clip.moveTo(...this.screen(p))));
-      clip.closePath();
-    }
     ctx.save();
-    ctx.clip(clip, 'evenodd');
+    ctx.clip(ringsClip(this.outline(), v), 'evenodd');
     if (image && f) {
-      ctx.imageSmoothingEnabled = v.k * f.spacing > 3;
-      const [left, top] = this.screen([f.x0, f.y0 + f.ny * f.spacing]);
-      ctx.drawImage(image, left, top, f.nx * f.spacing * v.k, f.ny * f.spacing * v.k);
+      drawFieldImage(ctx, image, f, v);
     } else {
       ctx.fillStyle = '#e4ebea';
-      ctx.fillRect(0, 0, this.size().w, this.size().h);
+      ctx.fillRect(0, 0, w, h);
     }
     ctx.restore();
   }
 
   private drawDots(): void {
-    const ctx = this.prepare(this.dotsCanvas().nativeElement);
+    const { w, h } = this.size();
+    const ctx = prepareCanvas(this.dotsCanvas().nativeElement, w, h);
     const pts = this.particles();
     if (!ctx || !pts) return;
-    const { k, ox, oy } = this.view();
+    const { k, x: ox, y: oy } = this.view();
     ctx.fillStyle = 'rgba(255, 255, 255, 0.95)';
     ctx.strokeStyle = 'rgba(20, 20, 20, 0.7)';
     ctx.lineWidth = 0.6;
@@ -237,8 +186,7 @@ export class TracerMap {
 
   private world(event: PointerEvent): Vec {
     const r = this.svg().nativeElement.getBoundingClientRect();
-    const { k, ox, oy } = this.view();
-    return [(event.clientX - r.left - ox) / k, (oy - (event.clientY - r.top)) / k];
+    return toWorld(this.view(), event.clientX - r.left, event.clientY - r.top);
   }
 
   protected onDown(event: PointerEvent): void {
