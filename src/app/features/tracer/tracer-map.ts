@@ -21,7 +21,7 @@ const MARGIN = 20;
   template: `
     <canvas #base aria-hidden="true"></canvas>
     <canvas #dots aria-hidden="true"></canvas>
-    <svg [attr.width]="size().w" [attr.height]="size().h" [class.drawing]="drawMode() !== null" role="img" [attr.aria-label]="ariaLabel()"
+    <svg #svg [attr.width]="size().w" [attr.height]="size().h" [class.drawing]="drawMode() !== null" role="img" [attr.aria-label]="ariaLabel()"
       (pointerdown)="onDown($event)" (pointermove)="onMove($event)" (pointerup)="onUp($event)" data-testid="tracer-map-svg">
       <path class="outline" [attr.d]="outlinePath()" data-testid="tracer-outline" />
       @for (p of portMarks(); track p.id) {
