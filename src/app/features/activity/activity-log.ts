@@ -6,10 +6,8 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { catchError, of, switchMap, tap } from 'rxjs';
 import { Api } from '../../core/api';
-import type { ActivityItem, Page } from '../../core/api-types';
-import { errorMessage } from '../../core/error-message';
+import { queryPage } from '../../core/query-page';
 import { WorkspaceContext } from '../../core/workspace-context';
 
 /** The workspace's activity log, newest first, a page at a time. */
@@ -29,37 +27,18 @@ export class ActivityLog {
   private readonly query = signal({ wid: null as string | number | null, pageIndex: 0, pageSize: 50 });
   protected readonly pageIndex = computed(() => this.query().pageIndex);
   protected readonly pageSize = computed(() => this.query().pageSize);
-  protected readonly page = signal<Page<ActivityItem>>({ items: [], total: 0 });
-  protected readonly loading = signal(true);
-  protected readonly error = signal<string | null>(null);
+  private readonly list = queryPage(this.query, (q) =>
+    q.wid === null ? null : this.api.activity(q.wid, { limit: q.pageSize, offset: q.pageIndex * q.pageSize }),
+  );
+  protected readonly page = this.list.page;
+  protected readonly loading = this.list.loading;
+  protected readonly error = this.list.error;
 
   constructor() {
     const wid = computed(() => this.context.current()?.id ?? null);
     toObservable(wid)
       .pipe(takeUntilDestroyed())
       .subscribe((id) => this.query.update((q) => ({ ...q, wid: id, pageIndex: 0 })));
-    toObservable(this.query)
-      .pipe(
-        tap(() => {
-          this.loading.set(true);
-          this.error.set(null);
-        }),
-        switchMap((q) =>
-          q.wid === null
-            ? of<Page<ActivityItem>>({ items: [], total: 0 })
-            : this.api.activity(q.wid, { limit: q.pageSize, offset: q.pageIndex * q.pageSize }).pipe(
-                catchError((err: unknown) => {
-                  this.error.set(errorMessage(err));
-                  return of<Page<ActivityItem>>({ items: [], total: 0 });
-                }),
-              ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.page.set(page);
-        this.loading.set(false);
-      });
   }
 
   protected onPage(event: PageEvent): void {

@@ -14,10 +14,11 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap, tap } from 'rxjs';
+import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import { Api } from '../../core/api';
-import type { Design, DesignSummary, Page } from '../../core/api-types';
+import type { Design, DesignSummary } from '../../core/api-types';
 import { errorMessage } from '../../core/error-message';
+import { queryPage } from '../../core/query-page';
 import { canEdit } from '../../core/roles';
 import { WorkspaceContext } from '../../core/workspace-context';
 import { ConfirmDialog, type ConfirmData } from '../../ui/confirm-dialog';
@@ -82,9 +83,14 @@ export class DesignList {
   protected readonly pageIndex = computed(() => this.query().pageIndex);
   protected readonly pageSize = computed(() => this.query().pageSize);
 
-  protected readonly loading = signal(true);
-  protected readonly error = signal<string | null>(null);
-  protected readonly page = signal<Page<DesignSummary>>({ items: [], total: 0 });
+  private readonly list = queryPage(this.query, (q) =>
+    q.wid === null
+      ? null
+      : this.api.designs(q.wid, { q: q.q, sort: q.sort, order: q.order, limit: q.pageSize, offset: q.pageIndex * q.pageSize }),
+  );
+  protected readonly loading = this.list.loading;
+  protected readonly error = this.list.error;
+  protected readonly page = this.list.page;
 
   constructor() {
     const wid = computed(() => this.context.current()?.id ?? null);
@@ -100,31 +106,6 @@ export class DesignList {
         takeUntilDestroyed(),
       )
       .subscribe((q) => this.query.update((s) => ({ ...s, q, pageIndex: 0 })));
-
-    toObservable(this.query)
-      .pipe(
-        tap(() => {
-          this.loading.set(true);
-          this.error.set(null);
-        }),
-        switchMap((q) =>
-          q.wid === null
-            ? of<Page<DesignSummary>>({ items: [], total: 0 })
-            : this.api
-                .designs(q.wid, { q: q.q, sort: q.sort, order: q.order, limit: q.pageSize, offset: q.pageIndex * q.pageSize })
-                .pipe(
-                  catchError((err: unknown) => {
-                    this.error.set(errorMessage(err));
-                    return of<Page<DesignSummary>>({ items: [], total: 0 });
-                  }),
-                ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.page.set(page);
-        this.loading.set(false);
-      });
   }
 
   protected onSort(sort: Sort): void {
