@@ -120,7 +120,8 @@ export function placeBand(
     return { from: [cx + (c.lo - pad) * t[0], cy + (c.lo - pad) * t[1]], to: [cx + (c.hi + pad) * t[0], cy + (c.hi + pad) * t[1]] };
   };
   const nears: number[] = [];
-  for (let s = inflow ? max(0.5 * w, inset) : 0.5 * w; s > 0.5 * w; s /= 2) nears.push(s);
+  // An inset that is not a finite length (no diffusion to escape by) falls back to half a width.
+  for (let s = inflow && Number.isFinite(inset) ? max(0.5 * w, inset) : 0.5 * w; s > 0.5 * w; s /= 2) nears.push(s);
   nears.push(0.5 * w);
   for (const near of nears) {
     if (near !== 0.5 * w && !straight(near)) continue;

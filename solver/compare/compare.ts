@@ -85,6 +85,7 @@ export function compareDrives(
     throw new SolveError('invalid-option', 'the design has no electrode above 0 V, so there is no slip-driven case to compare');
   }
   const D = options.referenceDiffusivity ?? 1e-9;
+  if (!(Number.isFinite(D) && D > 0)) throw new SolveError('invalid-option', `the reference diffusivity must be a positive number of m²/s, not ${D}`, { field: 'referenceDiffusivity' });
   const particles = options.particles ?? COMPARE_PARTICLES;
   const seed = options.seed ?? 1;
   if (!(Number.isInteger(particles) && (particles === 0 || (particles >= 10 && particles <= 200000)))) {

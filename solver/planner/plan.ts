@@ -1,7 +1,8 @@
 import type { DesignDocument } from '../../shared/design';
 import { boundedLeastSquares } from './least-squares';
 import { superposePorts } from './superpose';
-import type { Drive, UnitResponses } from './unit-responses';
+import { withSettings, type Drive } from '../../shared/drives';
+import type { UnitResponses } from './unit-responses';
 
 /**
  * What the engineer asks for. Flow rates and currents are positive INTO the fluid through the port
@@ -109,22 +110,6 @@ export function planSettings(responses: UnitResponses, request: PlanRequest): Pl
     return { target: t, wanted, achieved, residual: achieved - wanted };
   });
   return { settings, targets, ports: superposePorts(responses, settings), design: withSettings(design, drives, settings) };
-}
-
-/** The design with drive strengths written into its ports. */
-export function withSettings(design: DesignDocument, drives: Drive[], settings: number[]): DesignDocument {
-  return {
-    ...design,
-    ports: design.ports.map((p) => {
-      const port = { ...p };
-      drives.forEach((d, k) => {
-        if (d.port !== p.id) return;
-        if (d.kind === 'potential') port.potential = settings[k];
-        else port.pressure = settings[k];
-      });
-      return port;
-    }),
-  };
 }
 
 export class PlanError extends Error {

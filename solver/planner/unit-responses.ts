@@ -1,11 +1,6 @@
 import type { DesignDocument } from '../../shared/design';
+import { drivesOf, type Drive } from '../../shared/drives';
 import { solveDesign, type SolveOptions, type SolveResult } from '../solve';
-
-/** One independent drive of the chip: a port's electrode potential or its pressure. */
-export interface Drive {
-  port: string;
-  kind: 'potential' | 'pressure';
-}
 
 /**
  * The chip's response to each drive alone at unit strength (1 V or 1 Pa, every other drive at 0). Because the
@@ -16,13 +11,6 @@ export interface UnitResponses {
   design: DesignDocument;
   drives: Drive[];
   results: SolveResult[];
-}
-
-/** Drives of a design: every port with an electrode (potential not null), plus every port's pressure when asked. */
-export function drivesOf(design: DesignDocument, withPressures: boolean): Drive[] {
-  const drives: Drive[] = design.ports.filter((p) => p.potential !== null).map((p) => ({ port: p.id, kind: 'potential' as const }));
-  if (withPressures) for (const p of design.ports) drives.push({ port: p.id, kind: 'pressure' });
-  return drives;
 }
 
 /** The design with one drive at 1 (V or Pa) and every other at 0; floating ports stay floating. */
@@ -49,13 +37,4 @@ export function unitResponses(
     }),
   );
   return { design, drives, results };
-}
-
-/** The strength of each drive in a design as it stands (its port potential or pressure). */
-export function settingsOf(design: DesignDocument, drives: Drive[]): number[] {
-  return drives.map((d) => {
-    const port = design.ports.find((p) => p.id === d.port);
-    if (!port) return 0;
-    return d.kind === 'potential' ? (port.potential ?? 0) : (port.pressure ?? 0);
-  });
 }

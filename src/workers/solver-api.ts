@@ -1,6 +1,5 @@
-import type { DesignDocument } from '../../shared/design';
 import type { Comparison } from '../../solver/compare';
-import type { Drive, PlanRequest, UnitResponses } from '../../solver/planner';
+import type { PlanRequest, UnitResponses } from '../../solver/planner';
 import type { SolveProgress, SolveResult } from '../../solver/solve';
 import type { TraceRequest, TraceRun } from '../../solver/tracer';
 import type { PlanOutcome, PlannerBasis, PlannerMap, RecombineOutcome } from './worker-planner';
@@ -93,7 +92,7 @@ export interface AnalysisApi {
   recombine(basis: number, map: PlannerMap, settings: number[]): Promise<RecombineOutcome>;
   /** Potentials for targets by bounded least squares on the basis. */
   plan(basis: number, request: PlanRequest): Promise<PlanOutcome>;
-  /** The design with drive strengths written into its ports. */
-  applySettings(design: DesignDocument, drives: Drive[], settings: number[]): Promise<DesignDocument>;
+  /** Lets the worker drop the basis (the Planner tab has closed). */
+  releaseBasis(basis: number): Promise<void>;
   trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome>;
 }

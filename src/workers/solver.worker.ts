@@ -2,7 +2,6 @@
 import { expose, releaseProxy, transfer, type Remote } from 'comlink';
 import type { SolveProgress } from '../../solver/solve';
 import type { AnalysisApi, AnalysisProgress, LayoutMeasure, SolverApi } from './solver-api';
-import { withSettings } from '../../solver/planner';
 import { compareOutcome, comparisonBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
 import { PlannerStore } from './worker-planner';
 import { fieldBuffers, measureLayout, resultBuffers, solveOutcome, throttledProgress } from './worker-solve';
@@ -84,8 +83,8 @@ const api: SolverApi & AnalysisApi = {
   async plan(basis, request) {
     return planner.plan(basis, request);
   },
-  async applySettings(design, drives, settings) {
-    return withSettings(design, drives, settings);
+  async releaseBasis(basis) {
+    planner.release(basis);
   },
   async trace(design, request, onProgress) {
     const [report, release] = analysisReporter(onProgress);

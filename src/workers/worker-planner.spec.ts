@@ -1,6 +1,6 @@
 import { parseDesign, type DesignDocument } from '../../shared/design';
 import { solveDesign } from '../../solver/solve';
-import { superposeField, unitResponses, withSettings } from '../../solver/planner';
+import { settingsOf, superposeField, unitResponses, withSettings } from '../../solver/planner';
 import cross from '../../tests/fixtures/designs/cross-injector.json';
 import { PlannerStore, recombine } from './worker-planner';
 
@@ -27,18 +27,19 @@ describe('the Planner in the solver worker', () => {
     }
   });
 
-  it('keeps one basis: the page gets its drives, the design settings and a copy of the grid, then recombines by id', () => {
+  it('keeps one basis: the page gets its drives and a copy of the grid, then recombines by id; a released basis is gone', () => {
     const store = new PlannerStore();
     const basis = store.keep(responses);
     expect(basis.drives.map((d) => d.port)).toEqual(doc.ports.filter((p) => p.potential !== null).map((p) => p.id));
-    expect(basis.settings).toEqual(basis.drives.map((d) => doc.ports.find((p) => p.id === d.port)!.potential));
+    const settings = settingsOf(doc, basis.drives);
+    expect(settings).toEqual(basis.drives.map((d) => doc.ports.find((p) => p.id === d.port)!.potential));
     expect(basis.fields.fraction).not.toBe(responses.results[0].fields.fraction);
     expect(Array.from(basis.fields.fraction)).toEqual(Array.from(responses.results[0].fields.fraction));
 
     // The design's own settings recombine to a direct solve of the design (linearity, physics.md §7).
-    const out = store.recombine(basis.id, 'potential', basis.settings);
+    const out = store.recombine(basis.id, 'potential', settings);
     if (!out.ok) throw new Error(out.error.message);
-    const direct = solveDesign(withSettings(doc, basis.drives, basis.settings), options);
+    const direct = solveDesign(withSettings(doc, basis.drives, settings), options);
     let worst = 0, scale = 0;
     for (let c = 0; c < n; c++) {
       if (Number.isNaN(direct.fields.potential[c])) continue;
@@ -51,10 +52,14 @@ describe('the Planner in the solver worker', () => {
 
     // A newer basis replaces it: the old id is refused as stale, not answered from the wrong responses.
     const newer = store.keep(responses);
-    const stale = store.recombine(basis.id, 'speed', basis.settings);
+    const stale = store.recombine(basis.id, 'speed', settings);
     expect(stale.ok).toBe(false);
     if (!stale.ok) expect(stale.error.code).toBe('stale-basis');
-    expect(store.recombine(newer.id, 'speed', newer.settings).ok).toBe(true);
+    expect(store.recombine(newer.id, 'speed', settings).ok).toBe(true);
+    store.release(basis.id);
+    expect(store.recombine(newer.id, 'speed', settings).ok).toBe(true);
+    store.release(newer.id);
+    expect(store.recombine(newer.id, 'speed', settings).ok).toBe(false);
   });
 
   it('plans on the kept basis, and says why a plan cannot be made', () => {

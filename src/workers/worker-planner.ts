@@ -1,5 +1,5 @@
 import type { PortResult, SolveFields } from '../../shared/result';
-import { planSettings, settingsOf, superposeField, superposePorts, type Drive, type PlanRequest, type PlanResult, type UnitResponses } from '../../solver/planner';
+import { planSettings, superposeField, superposePorts, type Drive, type PlanRequest, type PlanResult, type UnitResponses } from '../../solver/planner';
 import type { SolveFailure } from './solver-api';
 
 const { sqrt } = Math;
@@ -14,8 +14,6 @@ export interface PlannerBasis {
   /** Names this basis in later calls; a worker that has since restarted no longer knows it. */
   id: number;
   drives: Drive[];
-  /** The design's own strength of each drive: the map's settings until a plan or a slider moves them. */
-  settings: number[];
   /** One unit response's fields: the grid and the fluid the maps are drawn on. */
   fields: SolveFields;
   grid: { nx: number; ny: number };
@@ -68,7 +66,7 @@ export class PlannerStore {
     const id = this.nextId++;
     this.kept = { id, responses };
     const first = responses.results[0];
-    return { id, drives: responses.drives, settings: settingsOf(responses.design, responses.drives), fields: copyFields(first.fields), grid: { nx: first.grid.nx, ny: first.grid.ny } };
+    return { id, drives: responses.drives, fields: copyFields(first.fields), grid: { nx: first.grid.nx, ny: first.grid.ny } };
   }
 
   /** The map and the port table for drive strengths s; a new array each call (it is transferred to the page). */
@@ -91,6 +89,11 @@ export class PlannerStore {
     } catch (error) {
       return { ok: false, error: { code: 'plan-failed', message: error instanceof Error ? error.message : String(error) } };
     }
+  }
+
+  /** Drops the basis if it is this one (its fields can be tens of megabytes). */
+  release(id: number): void {
+    if (this.kept?.id === id) this.kept = null;
   }
 
   private basis(id: number): UnitResponses | null {

@@ -39,6 +39,12 @@ describe('compare slip against pressure', () => {
   it('refuses a port that does not exist, naming it', () => {
     expect(() => compareDrives(design, 'NOPE', { cells: 60 })).toThrow('no port "NOPE"');
   });
+
+  it('refuses a reference diffusivity that is not a positive number, before any solve', () => {
+    for (const D of [0, -1e-9, Number.NaN, Number.POSITIVE_INFINITY]) {
+      expect(() => compareDrives(design, design.ports[0].id, { cells: 60, referenceDiffusivity: D })).toThrow(/reference diffusivity must be a positive number/);
+    }
+  });
 });
 
 /**

@@ -69,4 +69,28 @@ describe('latestOf', () => {
     await new Promise((r) => setTimeout(r, 0));
     expect(out()).toBe('for 1');
   });
+
+  it('makes no call when the source gives the same value again (a document edit that keeps its shapes)', async () => {
+    const shapes = [{ kind: 'a' }];
+    const doc = signal({ name: 'first', shapes });
+    const calls: unknown[] = [];
+    @Component({ selector: 'osm-same-host', template: '' })
+    class Host {
+      readonly out = latestOf(() => doc().shapes, async (s) => (calls.push(s), s.length), -1);
+    }
+    const fixture = TestBed.createComponent(Host);
+    const settle = async () => {
+      fixture.detectChanges();
+      await fixture.whenStable();
+      await new Promise((r) => setTimeout(r, 0));
+    };
+    await settle();
+    doc.set({ name: 'renamed', shapes });
+    await settle();
+    expect(calls).toHaveLength(1);
+    doc.set({ name: 'renamed', shapes: [...shapes, { kind: 'b' }] });
+    await settle();
+    expect(calls).toHaveLength(2);
+    expect(fixture.componentInstance.out()).toBe(2);
+  });
 });

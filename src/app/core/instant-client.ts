@@ -1,4 +1,4 @@
-import { DestroyRef, InjectionToken, inject, signal, effect, untracked, type Signal } from '@angular/core';
+import { DestroyRef, InjectionToken, computed, effect, inject, signal, untracked, type Signal } from '@angular/core';
 import type { Shape } from '../../../shared/design';
 import type { InstantApi, OutlineRings } from '../../workers/instant-api';
 import type { GeometryChecks } from '../features/sketch/live-checks';
@@ -14,9 +14,12 @@ export const INSTANT = new InjectionToken<InstantApi>('Osmolane instant worker')
 /**
  * A signal that follows `work(source())` computed elsewhere (in a worker): it keeps its last answer until the
  * next one arrives, and while one call is out, changes coalesce into one more call with the newest value, so a
- * drag does not queue a call per pointer move. Call in an injection context.
+ * drag does not queue a call per pointer move. A source that gives the same value again (Object.is) makes no
+ * call: `() => doc().shapes` asks again only when the shapes change, not on every edit of the document. Call in an
+ * injection context.
  */
 export function latestOf<T, R>(source: () => T, work: (value: T) => Promise<R>, initial: R): Signal<R> {
+  const input = computed(source);
   const out = signal<R>(initial);
   let alive = true;
   let busy = false;
@@ -34,7 +37,7 @@ export function latestOf<T, R>(source: () => T, work: (value: T) => Promise<R>, 
       });
   };
   effect(() => {
-    const value = source();
+    const value = input();
     untracked(() => (busy ? (pending = { value }) : run(value)));
   });
   return out.asReadonly();

@@ -1,12 +1,10 @@
 import { InjectionToken, inject } from '@angular/core';
 import { proxy, wrap, type Remote } from 'comlink';
-import type { DesignDocument } from '../../../shared/design';
 import type {
   AnalysisApi,
   AnalysisProgress,
   BasisOutcome,
   CompareOutcome,
-  Drive,
   LayoutMeasure,
   PlanOutcome,
   PlannerMap,
@@ -69,7 +67,7 @@ export interface AnalysisClient {
   unitResponses(design: unknown, options: WorkerSolveOptions, onProgress?: (progress: AnalysisProgress) => void): Promise<BasisOutcome>;
   recombine(basis: number, map: PlannerMap, settings: number[]): Promise<RecombineOutcome>;
   plan(basis: number, request: PlanRequest): Promise<PlanOutcome>;
-  applySettings(design: DesignDocument, drives: Drive[], settings: number[]): Promise<DesignDocument>;
+  releaseBasis(basis: number): Promise<void>;
   trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome>;
   cancel(): void;
 }
@@ -144,7 +142,7 @@ export class WorkerSolverClient implements SolverClient, AnalysisClient {
     return this.exclusive((r) => r.unitResponses(design, options, onProgress ? proxy(onProgress) : undefined) as Promise<BasisOutcome>);
   }
 
-  /** Not exclusive (as are plan and applySettings): waits behind a call in flight rather than stopping it. */
+  /** Not exclusive (as are plan and releaseBasis): waits behind a call in flight rather than stopping it. */
   recombine(basis: number, map: PlannerMap, settings: number[]): Promise<RecombineOutcome> {
     return this.current().call((r) => r.recombine(basis, map, settings) as Promise<RecombineOutcome>);
   }
@@ -153,8 +151,8 @@ export class WorkerSolverClient implements SolverClient, AnalysisClient {
     return this.current().call((r) => r.plan(basis, request) as Promise<PlanOutcome>);
   }
 
-  applySettings(design: DesignDocument, drives: Drive[], settings: number[]): Promise<DesignDocument> {
-    return this.current().call((r) => r.applySettings(design, drives, settings) as Promise<DesignDocument>);
+  releaseBasis(basis: number): Promise<void> {
+    return this.current().call((r) => r.releaseBasis(basis));
   }
 
   trace(design: unknown, request: WorkerTraceRequest, onProgress?: (progress: AnalysisProgress) => void): Promise<TraceOutcome> {

@@ -67,10 +67,13 @@ export class DoubleLayerTab {
     const inputs = { ionicStrength: I, zeta: z, temperature: T, field: E, relativePermittivity: b.relativePermittivity, viscosity: b.viscosity, depth: this.document().depth, width: this.narrowest() };
     return { inputs, axis: this.axis() };
   });
-  /** The profiles and report, computed in the instant worker; null while the inputs are incomplete. */
-  protected readonly view = latestOf(this.inputs, (q) => (q ? this.instant.doubleLayer(q.inputs, q.axis) : Promise.resolve(null)), null);
-  protected readonly xTitle = computed(() => (this.axis() === 'nm' ? 'distance from the wall' : 'distance from the wall / λ_D'));
-  protected readonly xDimension = computed(() => (this.axis() === 'nm' ? ('length' as const) : ('dimensionless' as const)));
+  /** The profiles and report from the instant worker, with the axis they were drawn for; null while inputs are incomplete. */
+  private readonly answer = latestOf(this.inputs, async (q) => (q ? { axis: q.axis, view: await this.instant.doubleLayer(q.inputs, q.axis) } : null), null);
+  protected readonly view = computed(() => this.answer()?.view ?? null);
+  /** The x axis as the shown profiles have it (the toggle's choice once its answer has come). */
+  private readonly shownAxis = computed(() => this.answer()?.axis ?? this.axis());
+  protected readonly xTitle = computed(() => (this.shownAxis() === 'nm' ? 'distance from the wall' : 'distance from the wall / λ_D'));
+  protected readonly xDimension = computed(() => (this.shownAxis() === 'nm' ? ('length' as const) : ('dimensionless' as const)));
   /** Whether the inputs differ from the design's buffer and side-wall zeta. */
   protected readonly edited = computed(() => {
     const doc = this.document();

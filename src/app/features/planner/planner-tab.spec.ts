@@ -6,7 +6,7 @@ import cross from '../../../../tests/fixtures/designs/cross-injector.json';
 import { ANALYSIS, type AnalysisClient } from '../../core/solver-client';
 import { responsesOutcome } from '../../../workers/worker-analysis';
 import { PlannerStore, type PlannerMap } from '../../../workers/worker-planner';
-import { withSettings, type Drive, type PlanRequest } from '../../../../solver/planner';
+import type { PlanRequest } from '../../../../solver/planner';
 import { PlannerTab } from './planner-tab';
 
 function design(): DesignDocument {
@@ -42,7 +42,7 @@ describe('PlannerTab', () => {
       },
       recombine: async (id: number, map: PlannerMap, settings: number[]) => store.recombine(id, map, settings),
       plan: async (id: number, request: PlanRequest) => store.plan(id, request),
-      applySettings: async (doc: DesignDocument, drives: Drive[], settings: number[]) => withSettings(doc, drives, settings),
+      releaseBasis: async (id: number) => store.release(id),
       compare: jest.fn(),
       trace: jest.fn(),
       cancel: jest.fn(),

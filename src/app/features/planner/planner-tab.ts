@@ -10,6 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSliderModule } from '@angular/material/slider';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import type { DesignDocument } from '../../../../shared/design';
+import { settingsOf, withSettings } from '../../../../shared/drives';
 import { latestOf } from '../../core/instant-client';
 import { ANALYSIS, type AnalysisProgress, type PlannerBasis, type PlannerMap, type PlanResult } from '../../core/solver-client';
 import { QuantityPipe } from '../../ui/quantity-pipe';
@@ -69,6 +70,8 @@ export class PlannerTab {
   protected readonly portPlans = signal<PortPlan[]>([]);
   protected readonly responses = signal<{ key: string; basis: PlannerBasis; pageMs: number } | null>(null);
   protected readonly computing = signal(false);
+  /** A plan is out to the worker. */
+  protected readonly planning = signal(false);
   protected readonly progress = signal<AnalysisProgress | null>(null);
   protected readonly error = signal<string | null>(null);
   protected readonly plan = signal<PlanResult | null>(null);
@@ -173,7 +176,7 @@ export class PlannerTab {
       const r = this.ready();
       untracked(() => {
         this.plan.set(null);
-        this.settings.set(r ? r.settings : null);
+        this.settings.set(r ? settingsOf(this.planned(), r.drives) : null);
         this.rangeVersion.update((v) => v + 1);
       });
     });
@@ -183,6 +186,8 @@ export class PlannerTab {
       if (l && !l.outcome.ok && l.outcome.error.code === 'stale-basis') untracked(() => this.responses.set(null));
     });
     inject(DestroyRef).onDestroy(() => {
+      const basis = this.ready();
+      if (basis) void this.analysis.releaseBasis(basis.id).catch(() => undefined);
       clearTimeout(timer);
       if (this.computing()) this.analysis.cancel();
     });
@@ -215,8 +220,16 @@ export class PlannerTab {
   protected async runPlan(): Promise<void> {
     const r = this.ready();
     if (!r || !this.canPlan()) return;
-    const outcome = await this.analysis.plan(r.id, planRequest(this.targets(), this.portPlans(), this.planned(), r.drives));
-    if (this.ready() !== r) return;
+    const request = planRequest(this.targets(), this.portPlans(), this.planned(), r.drives);
+    const asked = JSON.stringify(request);
+    this.planning.set(true);
+    const outcome = await this.analysis.plan(r.id, request).catch((error: unknown) => ({
+      ok: false as const,
+      error: { code: 'worker-failed', message: error instanceof Error ? error.message : String(error) },
+    }));
+    this.planning.set(false);
+    // Answered for what was asked: the basis, targets and ports must still be those of the request.
+    if (this.ready() !== r || JSON.stringify(planRequest(this.targets(), this.portPlans(), this.planned(), r.drives)) !== asked) return;
     if (!outcome.ok) {
       if (outcome.error.code === 'stale-basis') this.responses.set(null);
       this.error.set(outcome.error.message);
@@ -242,10 +255,10 @@ export class PlannerTab {
     this.mapId.set(map);
   }
 
-  protected async apply(): Promise<void> {
+  protected apply(): void {
     const r = this.ready(), s = this.settings();
     if (!r || !s || this.readOnly()) return;
-    this.documentChange.emit(await this.analysis.applySettings(this.planned(), r.drives, s));
+    this.documentChange.emit(withSettings(this.planned(), r.drives, s));
   }
 
   protected residualShare(t: PlanResult['targets'][number]): number | null {

@@ -94,4 +94,21 @@ describe('TracerTab', () => {
     expect(fixture.componentInstance['detector']()).toEqual({ from: [2e-3, 0.9e-3], to: [2e-3, 1.1e-3] });
     expect(map.componentInstance.drawMode()).toBeNull();
   });
+
+  it('keeps a drawn detector when the design changes but its shapes do not, and starts again for a new layout', async () => {
+    click('tracer-draw-detector');
+    await settle();
+    const map = fixture.debugElement.query((d) => d.name === 'osm-tracer-map');
+    map.componentInstance.drawn.emit({ mode: 'detector', a: [2e-3, 0.9e-3], b: [2e-3, 1.1e-3] });
+    await settle();
+    const doc = fixture.componentInstance.document();
+    fixture.componentRef.setInput('document', { ...doc, ports: doc.ports.map((p) => (p.potential ? { ...p, potential: p.potential / 2 } : p)) });
+    await settle();
+    await settle();
+    expect(fixture.componentInstance['detector']()).toEqual({ from: [2e-3, 0.9e-3], to: [2e-3, 1.1e-3] });
+    fixture.componentRef.setInput('document', { ...doc, shapes: [...doc.shapes] });
+    await settle();
+    await settle();
+    expect(fixture.componentInstance['detector']()).not.toEqual({ from: [2e-3, 0.9e-3], to: [2e-3, 1.1e-3] });
+  });
 });

@@ -193,11 +193,11 @@ export class TracerTab {
   });
 
   constructor() {
-    // A band to start from, and the pinched-plug roles, for each layout (once its outline has come from the worker).
-    let shown: unknown = null;
+    // A band to start from, and the pinched-plug roles, for each layout (when its outline comes from the worker).
+    let shown: unknown = this.outline();
     effect(() => {
       const rings = this.outline();
-      if (rings === shown || rings.length === 0) return;
+      if (rings === shown) return;
       shown = rings;
       untracked(() => {
         const doc = this.document();
@@ -237,6 +237,7 @@ export class TracerTab {
   }
 
   protected setMode(mode: InjectionMode): void {
+    this.presetAsked++;
     this.mode.set(mode);
     this.drawMode.set(null);
     if (mode === 'pinched') void this.applyPreset();
@@ -249,7 +250,7 @@ export class TracerTab {
     const asked = ++this.presetAsked;
     this.presetError.set(null);
     const outcome = roles ? await this.instant.pinchedPlug(this.document(), roles, this.mobility.value() ?? 0) : null;
-    if (asked !== this.presetAsked) return;
+    if (asked !== this.presetAsked || this.mode() !== 'pinched') return;
     if (outcome?.ok) {
       this.phases.set(outcome.preset.phases);
       this.pinchedRegion.set(outcome.preset.injection.polygon);
