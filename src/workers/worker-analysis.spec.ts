@@ -2,7 +2,7 @@ import bend from '../../tests/fixtures/designs/bend-90.json';
 import cross from '../../tests/fixtures/designs/cross-injector.json';
 import straight from '../../tests/fixtures/designs/straight-channel.json';
 import type { AnalysisProgress } from './solver-api';
-import { compareOutcome, comparisonBuffers, responsesBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
+import { compareOutcome, comparisonBuffers, responsesOutcome, traceBuffers, traceOutcome } from './worker-analysis';
 
 describe('the worker’s analyses', () => {
   it('compares slip and pressure into an outcome, with progress over its three solves and two bands, and distinct buffers', () => {
@@ -36,7 +36,6 @@ describe('the worker’s analyses', () => {
     if (!out.ok) return;
     expect(out.responses.drives.map((d) => d.port)).toEqual(['B', 'W', 'S', 'SW']);
     expect(labels).toEqual(new Set(['unit response of B', 'unit response of W', 'unit response of S', 'unit response of SW']));
-    expect(responsesBuffers(out.responses).length).toBeGreaterThanOrEqual(4 * 9);
   });
 
   it('traces a band to a detector, frames and arrivals ready to transfer', () => {

@@ -4,7 +4,7 @@
  */
 import { parseDesign } from '../../shared/design';
 import { compareDrives, type Comparison } from '../../solver/compare';
-import { drivesOf, unitResponses, type Drive, type UnitResponses } from '../../solver/planner';
+import { drivesOf, unitResponses, type Drive } from '../../solver/planner';
 import { SolveError, type SolveProgress } from '../../solver/solve';
 import { runTrace, type TraceRun } from '../../solver/tracer';
 import type { AnalysisOutcome, AnalysisProgress, CompareOutcome, ResponsesOutcome, TraceOutcome, WorkerCompareOptions, WorkerSolveOptions, WorkerTraceRequest } from './solver-api';
@@ -101,10 +101,6 @@ export function traceOutcome(design: unknown, request: WorkerTraceRequest, repor
 /** Distinct buffers of a comparison's two solves. */
 export function comparisonBuffers(c: Comparison): ArrayBuffer[] {
   return distinct([...resultBuffers(c.slip.result), ...resultBuffers(c.pressure.result)]);
-}
-
-export function responsesBuffers(r: UnitResponses): ArrayBuffer[] {
-  return distinct(r.results.flatMap(resultBuffers));
 }
 
 export function traceBuffers(run: TraceRun): ArrayBuffer[] {
