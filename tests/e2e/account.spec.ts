@@ -58,6 +58,8 @@ test('a new member joins, forgets the password, resets it from the mail, signs i
   await page.getByTestId('user-menu').click();
   await page.getByRole('menuitem', { name: 'Change password' }).click();
   const dialog = page.getByRole('dialog', { name: 'Change password' });
+  // The dialog focuses its first field once it has opened: wait for that, or the focus moves in the middle of typing.
+  await expect(dialog.getByLabel('Current password')).toBeFocused();
   await dialog.getByLabel('Current password').fill('wrong-one');
   await dialog.getByLabel('New password', { exact: true }).fill('third-pass-phrase');
   await dialog.getByLabel('New password again').fill('third-pass-phrase');
